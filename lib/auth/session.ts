@@ -1,0 +1,83 @@
+import "server-only";
+import { cache } from "react";
+import { cookies } from "next/headers";
+import { redirect } from "next/navigation";
+import { getIronSession, type SessionOptions } from "iron-session";
+import { AppError } from "@/lib/errors";
+import { can, type Permission, type Role } from "./roles";
+import { sessionPasswords } from "./secret";
+import {
+  SESSION_ABSOLUTE_LIFETIME_MS,
+  findSessionMember,
+  type SessionMember,
+} from "@/lib/data/sessions";
+
+/** What the sealed cookie holds: only the random session id, checked against the sessions table. */
+export interface SessionData {
+  sid?: string;
+}
+
+export type Member = SessionMember;
+
+function secureCookies(): boolean {
+  if (process.env.COOKIE_SECURE === "false") return false;
+  if (process.env.COOKIE_SECURE === "true") return true;
+  return process.env.NODE_ENV === "production";
+}
+
+export function sessionOptions(): SessionOptions {
+  const secure = secureCookies();
+  return {
+    password: sessionPasswords(),
+    // __Host- requires Secure, Path=/ and no Domain: the cookie cannot be set by a sibling subdomain.
+    cookieName: secure ? "__Host-flueward-session" : "flueward-session",
+    ttl: Math.floor(SESSION_ABSOLUTE_LIFETIME_MS / 1000),
+    cookieOptions: { httpOnly: true, sameSite: "lax", secure, path: "/" },
+  };
+}
+
+export async function getCookieSession() {
+  return getIronSession<SessionData>(await cookies(), sessionOptions());
+}
+
+/** The signed-in member, or null. Memoised per request. */
+export const getCurrentMember = cache(async (): Promise<Member | null> => {
+  const session = await getCookieSession();
+  if (!session.sid) return null;
+  return findSessionMember(session.sid);
+});
+
+/** For route handlers and server actions: the member, or a 401 error. */
+export async function requireMember(): Promise<Member> {
+  const member = await getCurrentMember();
+  if (!member) throw new AppError("unauthenticated");
+  return member;
+}
+
+/** For route handlers and server actions: a member holding one of the roles, or 401/403. */
+export async function requireRole(...roles: Role[]): Promise<Member> {
+  const member = await requireMember();
+  if (!roles.includes(member.role)) throw new AppError("forbidden");
+  return member;
+}
+
+export async function requirePermission(permission: Permission): Promise<Member> {
+  const member = await requireMember();
+  if (!can(member.role, permission)) throw new AppError("forbidden");
+  return member;
+}
+
+/** For pages: the member, or a redirect to sign-in (and to the password page after a temporary password). */
+export async function requirePageMember(options: { allowPasswordChange?: boolean } = {}): Promise<Member> {
+  const member = await getCurrentMember();
+  if (!member) redirect("/sign-in");
+  if (member.mustChangePassword && !options.allowPasswordChange) redirect("/account?first=1");
+  return member;
+}
+
+/** For pages: a member with the permission; others see the forbidden page. */
+export async function requirePagePermission(permission: Permission): Promise<Member> {
+  const member = await requirePageMember();
+  if (!can(member.role, permission)) redirect("/forbidden");
+  return member;
+}

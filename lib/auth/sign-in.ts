@@ -1,0 +1,89 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import { verifyPassword } from "./passwords";
+import { getCookieSession } from "./session";
+import { findCredentialsByEmail } from "@/lib/data/users";
+import { createSession, revokeSession, hashSessionId } from "@/lib/data/sessions";
+import { clearFailuresForEmail, recentFailures, recordLoginAttempt } from "@/lib/data/login-attempts";
+import { recordAudit } from "@/lib/data/audit";
+import { getDb } from "@/db/knex";
+
+/** Failures allowed per account and per client address within the window before sign-in pauses. */
+export const SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
+export const SIGN_IN_MAX_FAILURES_PER_ACCOUNT = 5;
+export const SIGN_IN_MAX_FAILURES_PER_CLIENT = 20;
+
+export const SIGN_IN_FAILED_MESSAGE = "That e-mail and password do not match an active account.";
+
+/**
+ * Seconds to wait before the next attempt. Once past the limit, each further failure in the
+ * window doubles the wait (30 s, 60 s, 120 s … up to the window).
+ */
+export function retryAfterSeconds(failures: string[], limit: number, nowMs: number): number {
+  if (failures.length < limit) return 0;
+  const over = failures.length - limit;
+  const lastMs = Date.parse(failures[failures.length - 1] ?? new Date(nowMs).toISOString());
+  const waitMs = Math.min(SIGN_IN_WINDOW_MS, 30_000 * 2 ** over);
+  return Math.max(0, Math.ceil((lastMs + waitMs - nowMs) / 1000));
+}
+
+export async function signIn(args: { email: string; password: string; client: string; userAgent: string }): Promise<{ mustChangePassword: boolean }> {
+  const nowMs = Date.now();
+  const since = new Date(nowMs - SIGN_IN_WINDOW_MS).toISOString();
+  // Rate limiting comes before hashing, so a flood costs the server only a cheap query.
+  const failures = await recentFailures({ email: args.email, client: args.client, sinceIso: since });
+  const wait = Math.max(
+    retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs),
+    retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs),
+  );
+  if (wait > 0) {
+    throw new AppError("rate_limited", `Too many failed sign-ins. Wait ${formatWait(wait)} and try again, or ask your admin to reset your password.`, {
+      headers: { "Retry-After": String(wait) },
+    });
+  }
+
+  const credentials = await findCredentialsByEmail(args.email);
+  // Always compare (against a dummy hash for unknown e-mails) so both failures take the same time.
+  const matches = await verifyPassword(args.password, credentials?.passwordHash);
+  if (!credentials || !matches || !credentials.active) {
+    await recordLoginAttempt({ email: args.email, client: args.client, succeeded: false });
+    throw new AppError("unauthenticated", SIGN_IN_FAILED_MESSAGE);
+  }
+
+  await recordLoginAttempt({ email: args.email, client: args.client, succeeded: true });
+  await clearFailuresForEmail(args.email);
+
+  const session = await getCookieSession();
+  // A new session id at every sign-in: an id planted before sign-in is never promoted.
+  if (session.sid) await revokeSession(hashSessionId(session.sid), "sign_out");
+  session.sid = await createSession({ userId: credentials.id, companyId: credentials.companyId, userAgent: args.userAgent });
+  await session.save();
+
+  const user = await getDb()("users").where({ id: credentials.id }).first("name", "must_change_password");
+  await recordAudit(getDb(), {
+    companyId: credentials.companyId,
+    actor: { userId: credentials.id, name: user?.name ?? "" },
+    action: "session.sign_in",
+    entityType: "user",
+    entityId: credentials.id,
+    summary: "Signed in",
+  });
+  return { mustChangePassword: Boolean(user?.must_change_password) };
+}
+
+export async function signOut(): Promise<void> {
+  const session = await getCookieSession();
+  if (session.sid) await revokeSession(hashSessionId(session.sid), "sign_out");
+  session.destroy();
+}
+
+function formatWait(seconds: number): string {
+  if (seconds < 90) return `${seconds} seconds`;
+  return `${Math.ceil(seconds / 60)} minutes`;
+}
+
+/** The client address as the server saw it (x-forwarded-for is set by Next's own server, or a trusted proxy). */
+export function clientAddress(headers: Headers): string {
+  const forwarded = headers.get("x-forwarded-for");
+  return (forwarded?.split(",")[0]?.trim() || headers.get("x-real-ip") || "local").slice(0, 100);
+}

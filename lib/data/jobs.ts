@@ -1,0 +1,222 @@
+import "server-only";
+import type { Knex } from "knex";
+import { getDb } from "@/db/knex";
+import { AppError } from "@/lib/errors";
+import type { JobFormValues, JobListQuery, JobStatus, JobUpdateValues } from "@/lib/schemas/job";
+import { recordAudit, type AuditActor } from "./audit";
+import { nowIso } from "./clock";
+
+export interface Job {
+  id: number;
+  reference: string;
+  customerName: string;
+  customerPhone: string;
+  customerEmail: string;
+  siteStreet: string;
+  siteCity: string;
+  siteRegion: string;
+  sitePostalCode: string;
+  status: JobStatus;
+  assignedInstallerId: number | null;
+  assignedInstallerName: string | null;
+  scheduledFor: string;
+  notes: string;
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface JobPage {
+  items: Job[];
+  total: number;
+  page: number;
+  pageSize: number;
+  pageCount: number;
+}
+
+const JOB_COLUMNS = [
+  "j.id",
+  "j.reference",
+  "j.customer_name",
+  "j.customer_phone",
+  "j.customer_email",
+  "j.site_street",
+  "j.site_city",
+  "j.site_region",
+  "j.site_postal_code",
+  "j.status",
+  "j.assigned_installer_id",
+  "u.name as assigned_installer_name",
+  "j.scheduled_for",
+  "j.notes",
+  "j.version",
+  "j.created_at",
+  "j.updated_at",
+];
+
+type JobRow = Record<string, unknown>;
+
+function toJob(row: JobRow): Job {
+  return {
+    id: row.id as number,
+    reference: row.reference as string,
+    customerName: row.customer_name as string,
+    customerPhone: row.customer_phone as string,
+    customerEmail: row.customer_email as string,
+    siteStreet: row.site_street as string,
+    siteCity: row.site_city as string,
+    siteRegion: row.site_region as string,
+    sitePostalCode: row.site_postal_code as string,
+    status: row.status as JobStatus,
+    assignedInstallerId: (row.assigned_installer_id as number | null) ?? null,
+    assignedInstallerName: (row.assigned_installer_name as string | null) ?? null,
+    scheduledFor: (row.scheduled_for as string | null) ?? "",
+    notes: row.notes as string,
+    version: row.version as number,
+    createdAt: row.created_at as string,
+    updatedAt: row.updated_at as string,
+  };
+}
+
+function baseQuery(db: Knex | Knex.Transaction, companyId: number) {
+  return db("jobs as j").leftJoin("users as u", "u.id", "j.assigned_installer_id").where("j.company_id", companyId);
+}
+
+const SORT_COLUMNS = {
+  updated_desc: [["j.updated_at", "desc"]],
+  updated_asc: [["j.updated_at", "asc"]],
+  customer_asc: [["j.customer_name", "asc"]],
+  customer_desc: [["j.customer_name", "desc"]],
+  scheduled_asc: [["j.scheduled_for", "asc"]],
+  reference_desc: [["j.reference", "desc"]],
+} as const satisfies Record<JobListQuery["sort"], ReadonlyArray<readonly [string, "asc" | "desc"]>>;
+
+/** A page of the company's jobs, searched, filtered and sorted. */
+export async function listJobs(args: { companyId: number; userId: number; query: JobListQuery }): Promise<JobPage> {
+  const { query } = args;
+  const db = getDb();
+  const filtered = () => {
+    const q = baseQuery(db, args.companyId);
+    if (query.status) q.andWhere("j.status", query.status);
+    if (query.mine === "1") q.andWhere("j.assigned_installer_id", args.userId);
+    if (query.q) {
+      const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      q.andWhere((w) =>
+        w
+          .whereRaw("j.customer_name like ? escape '\\'", [like])
+          .orWhereRaw("j.site_street like ? escape '\\'", [like])
+          .orWhereRaw("j.site_city like ? escape '\\'", [like])
+          .orWhereRaw("j.reference like ? escape '\\'", [like]),
+      );
+    }
+    return q;
+  };
+  const countRow = await filtered().count<{ n: number | string }[]>({ n: "j.id" }).first();
+  const total = Number(countRow?.n ?? 0);
+  const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
+  const page = Math.min(query.page, pageCount);
+  const listQuery = filtered().select(JOB_COLUMNS);
+  for (const [column, direction] of SORT_COLUMNS[query.sort]) listQuery.orderBy(column, direction);
+  listQuery.orderBy("j.id", "desc");
+  const rows = await listQuery.limit(query.pageSize).offset((page - 1) * query.pageSize);
+  return { items: rows.map(toJob), total, page, pageSize: query.pageSize, pageCount };
+}
+
+/** One job of the company, or a not_found error (also for another company's id). */
+export async function getJobById(args: { companyId: number; id: number }): Promise<Job> {
+  const row = await baseQuery(getDb(), args.companyId).andWhere("j.id", args.id).first(JOB_COLUMNS);
+  if (!row) throw new AppError("not_found", "No such job in your company.");
+  return toJob(row);
+}
+
+async function assertInstallerInCompany(db: Knex.Transaction, companyId: number, userId: number | null) {
+  if (userId === null) return;
+  const user = await db("users").where({ id: userId, company_id: companyId, active: true }).first("id");
+  if (!user) throw new AppError("validation_failed", undefined, { fields: { assignedInstallerId: "Choose an active member of your company." } });
+}
+
+async function nextReference(db: Knex.Transaction, companyId: number): Promise<string> {
+  const row = await db("jobs").where({ company_id: companyId }).count<{ n: number | string }[]>({ n: "id" }).first();
+  let n = Number(row?.n ?? 0) + 1;
+  for (;;) {
+    const reference = `J-${String(n).padStart(4, "0")}`;
+    const taken = await db("jobs").where({ company_id: companyId, reference }).first("id");
+    if (!taken) return reference;
+    n += 1;
+  }
+}
+
+function toColumns(values: JobFormValues) {
+  return {
+    customer_name: values.customerName,
+    customer_phone: values.customerPhone,
+    customer_email: values.customerEmail,
+    site_street: values.siteStreet,
+    site_city: values.siteCity,
+    site_region: values.siteRegion,
+    site_postal_code: values.sitePostalCode,
+    status: values.status,
+    assigned_installer_id: values.assignedInstallerId,
+    scheduled_for: values.scheduledFor || null,
+    notes: values.notes,
+  };
+}
+
+export async function createJob(args: { companyId: number; actor: AuditActor; values: JobFormValues }): Promise<Job> {
+  const id = await getDb().transaction(async (trx) => {
+    await assertInstallerInCompany(trx, args.companyId, args.values.assignedInstallerId);
+    const now = nowIso();
+    const reference = await nextReference(trx, args.companyId);
+    const [inserted] = await trx("jobs")
+      .insert({ company_id: args.companyId, reference, ...toColumns(args.values), version: 1, created_by: args.actor.userId, created_at: now, updated_at: now })
+      .returning("id");
+    const jobId = typeof inserted === "object" ? (inserted as { id: number }).id : (inserted as number);
+    await recordAudit(trx, {
+      companyId: args.companyId,
+      actor: args.actor,
+      action: "job.created",
+      entityType: "job",
+      entityId: jobId,
+      summary: `Created job ${reference} for ${args.values.customerName}`,
+      after: args.values,
+    });
+    return jobId;
+  });
+  return getJobById({ companyId: args.companyId, id });
+}
+
+/**
+ * Updates a job if the caller saw its latest version; otherwise a conflict error, so two people
+ * editing the same job never overwrite each other silently.
+ */
+export async function updateJob(args: { companyId: number; id: number; actor: AuditActor; values: JobUpdateValues; mayAssign: boolean }): Promise<Job> {
+  await getDb().transaction(async (trx) => {
+    const current = await baseQuery(trx, args.companyId).andWhere("j.id", args.id).first(JOB_COLUMNS);
+    if (!current) throw new AppError("not_found", "No such job in your company.");
+    const before = toJob(current);
+    if (before.version !== args.values.version) throw new AppError("conflict");
+    const { version: _version, ...values } = args.values;
+    if (!args.mayAssign && values.assignedInstallerId !== before.assignedInstallerId) {
+      throw new AppError("forbidden", "Only a supervisor or admin can change who a job is assigned to.");
+    }
+    await assertInstallerInCompany(trx, args.companyId, values.assignedInstallerId);
+    const updated = await trx("jobs")
+      .where({ id: args.id, company_id: args.companyId, version: before.version })
+      .update({ ...toColumns(values), version: before.version + 1, updated_at: nowIso() });
+    if (updated !== 1) throw new AppError("conflict");
+    const changed = Object.fromEntries(
+      Object.entries(values).filter(([key, value]) => (before as unknown as Record<string, unknown>)[key] !== value),
+    );
+    await recordAudit(trx, {
+      companyId: args.companyId,
+      actor: args.actor,
+      action: "job.updated",
+      entityType: "job",
+      entityId: args.id,
+      summary: `Updated ${Object.keys(changed).join(", ") || "nothing"} on job ${before.reference}`,
+      before: Object.fromEntries(Object.keys(changed).map((key) => [key, (before as unknown as Record<string, unknown>)[key]])),
+      after: changed,
+    });
+  });
+  return getJobById({ companyId: args.companyId, id: args.id });
+}

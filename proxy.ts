@@ -1,0 +1,84 @@
+import { NextResponse, type NextRequest } from "next/server";
+import { isCrossSiteWrite } from "@/lib/api/origin";
+
+/**
+ * Runs before every request: a fresh CSP nonce for pages, security headers for everything,
+ * cross-site writes refused, and an early redirect to sign-in for pages when no session cookie
+ * is present. The redirect is only a convenience: every handler, action and data read checks
+ * the session and the role itself.
+ */
+const PUBLIC_PAGE_PREFIXES = ["/sign-in", "/verify", "/share", "/forbidden"];
+
+function buildCsp(nonce: string): string {
+  const dev = process.env.NODE_ENV !== "production";
+  return [
+    "default-src 'self'",
+    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ""}`,
+    // React writes style attributes (e.g. progress widths); scripts stay nonce-only.
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' blob: data:",
+    "font-src 'self'",
+    `connect-src 'self'${dev ? " ws:" : ""}`,
+    "object-src 'none'",
+    "base-uri 'self'",
+    "form-action 'self'",
+    "frame-ancestors 'none'",
+  ].join("; ");
+}
+
+function applySecurityHeaders(response: NextResponse, csp: string): NextResponse {
+  response.headers.set("Content-Security-Policy", csp);
+  response.headers.set("X-Content-Type-Options", "nosniff");
+  response.headers.set("Referrer-Policy", "strict-origin-when-cross-origin");
+  response.headers.set("X-Frame-Options", "DENY");
+  response.headers.set("Permissions-Policy", "camera=(self), geolocation=(), microphone=()");
+  response.headers.set("Cross-Origin-Opener-Policy", "same-origin");
+  if (process.env.NODE_ENV === "production" && process.env.COOKIE_SECURE !== "false") {
+    response.headers.set("Strict-Transport-Security", "max-age=31536000; includeSubDomains");
+  }
+  return response;
+}
+
+function hasSessionCookie(request: NextRequest): boolean {
+  return request.cookies.has("__Host-flueward-session") || request.cookies.has("flueward-session");
+}
+
+export async function proxy(request: NextRequest) {
+  const { pathname } = request.nextUrl;
+
+  if (pathname.startsWith("/api/")) {
+    const csp = "default-src 'none'; frame-ancestors 'none'";
+    if (isCrossSiteWrite(request)) {
+      const refused = NextResponse.json(
+        { error: { code: "cross_site_refused", message: "This request came from another site and was refused." } },
+        { status: 403 },
+      );
+      return applySecurityHeaders(refused, csp);
+    }
+    return applySecurityHeaders(NextResponse.next(), csp);
+  }
+
+  const nonce = Buffer.from(crypto.randomUUID()).toString("base64");
+  const csp = buildCsp(nonce);
+  const isPublic = pathname === "/" || PUBLIC_PAGE_PREFIXES.some((p) => pathname === p || pathname.startsWith(`${p}/`));
+  if (!isPublic && !hasSessionCookie(request)) {
+    const url = request.nextUrl.clone();
+    url.pathname = "/sign-in";
+    url.search = "";
+    return applySecurityHeaders(NextResponse.redirect(url), csp);
+  }
+
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set("x-nonce", nonce);
+  requestHeaders.set("Content-Security-Policy", csp);
+  return applySecurityHeaders(NextResponse.next({ request: { headers: requestHeaders } }), csp);
+}
+
+export const config = {
+  matcher: [
+    {
+      source: "/((?!_next/static|_next/image|favicon.ico|icon.svg|fonts/).*)",
+      missing: [{ type: "header", key: "next-router-prefetch" }],
+    },
+  ],
+};
