@@ -1,0 +1,28 @@
+import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
+import type { Appliance, VentRun } from "../inputs";
+import type { PreparedRulebook } from "../rulebook/prepare";
+import { assessSingleCapacity } from "../sizing/assess-capacity";
+import { finding, target } from "./shared";
+
+const CODE = FINDING_CODES.commonVentOrphaned;
+
+/**
+ * An appliance left alone on a vent that used to be common: re-check it against the
+ * single-appliance table, minimum as well as maximum, because the old vent is often too big.
+ * @param remaining the appliances still connected to the vent
+ */
+export function checkOrphanedAppliance(run: VentRun, remaining: readonly Appliance[], allAppliances: readonly Appliance[], rb: PreparedRulebook): Finding {
+  const m = MESSAGES.commonVentOrphaned;
+  const t = target("ventRun", null, "serves", "ventRun.vent.serves");
+  if (remaining.length === 0) return finding(CODE, "warn", m.noneLeft(), t, null);
+  if (remaining.length > 1) return finding(CODE, "needs-info", m.several(), t, null);
+  const a = remaining[0]!;
+  const idx = allAppliances.findIndex((x) => x.id === a.id);
+  const r = assessSingleCapacity({ ...run, vent: { ...run.vent, serves: "single" } }, a, idx, rb);
+  const label = a.label || a.id;
+  const message = r.status === "pass" ? m.pass(label, r.message) : r.status === "fail" ? m.fail(label, r.message) : m.needsInfo(label, r.message);
+  const extras: { measured?: typeof r.measured; required?: typeof r.required } = {};
+  if (r.measured) extras.measured = r.measured;
+  if (r.required) extras.required = r.required;
+  return finding(CODE, r.status, message, r.target, r.rule, extras);
+}

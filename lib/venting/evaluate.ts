@@ -1,0 +1,288 @@
+import { checkAirOpeningDimension } from "./checks/air-opening-dimension";
+import { checkIndoorOpenings, checkOutdoorOpenings, type OpeningSizing } from "./checks/air-openings";
+import { airContext } from "./checks/air-context";
+import { checkAirVolume } from "./checks/air-volume";
+import { checkClearanceCombustibles } from "./checks/clearance-combustibles";
+import { checkOrphanedAppliance } from "./checks/common-vent-orphaned";
+import { checkConnectorDiameter } from "./checks/connector-diameter";
+import { checkConnectorHorizontalLength, maxHorizontalConnectorFt } from "./checks/connector-horizontal-length";
+import { checkConnectorLengthPerDiameter } from "./checks/connector-length-per-diameter";
+import { checkConnectorSlope } from "./checks/connector-slope";
+import { checkJointsFasteners } from "./checks/joints-fasteners";
+import { checkJointsLocked } from "./checks/joints-locked";
+import { checkPassageSingleWall } from "./checks/passage-single-wall";
+import { checkAmbientCo } from "./checks/readings-ambient-co";
+import { checkCoAirFree } from "./checks/readings-co-air-free";
+import { checkDraft } from "./checks/readings-draft";
+import { checkInputRate } from "./checks/readings-input-rate";
+import type { ReadingsContext } from "./checks/readings-shared";
+import { checkSpillage } from "./checks/readings-spillage";
+import { checkTemperatureRise } from "./checks/readings-temperature-rise";
+import { applianceCategory, groupConnectors, type VentRunContext } from "./checks/shared";
+import { checkSupportsSpacing } from "./checks/supports-spacing";
+import { checkTerminationDistance } from "./checks/termination-distance";
+import { checkTerminationHeight } from "./checks/termination-height";
+import { checkVentCapacity } from "./checks/vent-capacity";
+import { checkVentCategory } from "./checks/vent-category";
+import { checkVentMinHeight } from "./checks/vent-min-height";
+import type { ConnectorMaterial } from "./enums";
+import { FINDING_STATUSES, type Finding, type FindingStatus } from "./findings";
+import type { AirSpace, Appliance, CheckInput, Readings, VentRun } from "./inputs";
+import type { PreparedRulebook } from "./rulebook/prepare";
+import type { VolumeRequirement } from "./sizing/air";
+import type { CapacitySizing } from "./sizing/assess-capacity";
+import { requiredRiseIn, supportsNeeded } from "./sizing/rise";
+
+/** Sizing answers for one segment. */
+export interface SegmentSizing {
+  readonly segmentId: string;
+  /** Rise a horizontal segment needs, in (null for vertical segments or missing length). */
+  readonly requiredRiseIn: number | null;
+  /** Supports the segment needs (null when length or the spacing row is missing). */
+  readonly supportsNeeded: number | null;
+}
+
+/** Sizing answers for a vent run. */
+export interface VentRunSizing {
+  readonly segments: readonly SegmentSizing[];
+  /** Longest total horizontal connector the vent height allows, ft (single appliance). */
+  readonly maxHorizontalConnectorFt: number | null;
+  /** Capacity answer for a single-appliance vent, with the smallest fitting diameter. */
+  readonly capacity: CapacitySizing | null;
+}
+
+/** Result of {@link evaluateVentRun}. */
+export interface VentRunResult {
+  readonly findings: Finding[];
+  readonly sizing: VentRunSizing;
+}
+
+/** Sizing answers for an air space. */
+export interface AirSpaceSizing {
+  readonly totalInputBtuh: number | null;
+  readonly availableVolumeCuFt: number | null;
+  readonly requirement: VolumeRequirement | null;
+  readonly openings: readonly OpeningSizing[];
+}
+
+/** Result of {@link evaluateCombustionAir}. */
+export interface AirSpaceResult {
+  readonly findings: Finding[];
+  readonly sizing: AirSpaceSizing;
+}
+
+/** Counts per status and the worst one. */
+export interface FindingSummary {
+  readonly total: number;
+  readonly counts: Readonly<Record<FindingStatus, number>>;
+  /** The worst status present (fail > needs-info > warn > pass); null when there are no findings. */
+  readonly worst: FindingStatus | null;
+}
+
+/** Result of {@link evaluateInspection}. */
+export interface InspectionResult {
+  readonly findings: Finding[];
+  readonly sizing: { readonly ventRun: VentRunSizing | null; readonly airSpace: AirSpaceSizing | null };
+  readonly summary: FindingSummary;
+  /** The rulebook edition the checks ran against. */
+  readonly edition: string;
+}
+
+function servedAppliances(run: VentRun, appliances: readonly Appliance[]): Appliance[] {
+  const ids = run.applianceIds;
+  if (ids) return appliances.filter((a) => ids.includes(a.id));
+  return appliances.filter((a) => a.draft !== "direct_vent");
+}
+
+/**
+ * Checks a vent run: connector slope, horizontal length, diameter, clearances, supports,
+ * joints, passages, vent height, capacity and termination. Category I rules run only when every
+ * served appliance is Category I (or its category is unknown); otherwise a `vent.category`
+ * caution says the manufacturer's instructions govern.
+ * @param ventRun the run as entered (parsed with `ventRunSchema`)
+ * @param appliances all appliances of the inspection; the run serves `ventRun.applianceIds` or every non-direct-vent one
+ * @param rulebook a rulebook from `prepareRulebook`
+ */
+export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance[], rulebook: PreparedRulebook): VentRunResult {
+  const findings: Finding[] = [];
+  const served = servedAppliances(ventRun, appliances);
+  const byId = new Map<string, Appliance>();
+  for (const a of appliances) byId.set(a.id, a);
+  const isCommon = ventRun.vent.serves === "common" || served.length > 1;
+  let mechanical = false;
+  for (const a of served) if (a.category === "III" || a.category === "IV") mechanical = true;
+  const categoryI = checkVentCategory(served, appliances, findings);
+  const ctx: VentRunContext = {
+    run: ventRun,
+    rb: rulebook,
+    served,
+    byId,
+    isCommon,
+    category: categoryI ? (served.every((a) => applianceCategory(a) === "category_i") ? "category_i" : "unknown") : "other",
+    connectors: groupConnectors(ventRun, served, byId),
+    ventSystem: mechanical ? "mechanical_draft" : "natural_draft",
+  };
+  let capacity: CapacitySizing | null = null;
+  if (categoryI) {
+    checkConnectorSlope(ctx, findings);
+    checkConnectorHorizontalLength(ctx, findings);
+    checkConnectorLengthPerDiameter(ctx, findings);
+  }
+  checkConnectorDiameter(ctx, findings);
+  if (categoryI) {
+    capacity = checkVentCapacity(ctx, findings, appliances);
+    checkVentMinHeight(ctx, findings);
+  }
+  checkClearanceCombustibles(ctx, findings);
+  checkSupportsSpacing(ctx, findings);
+  checkJointsFasteners(ctx, findings);
+  checkJointsLocked(ctx, findings);
+  checkPassageSingleWall(ctx, findings);
+  if (categoryI) checkTerminationHeight(ctx, findings);
+  checkTerminationDistance(ctx, findings);
+
+  const slope = rulebook.params.get("connector_min_slope_in_per_ft");
+  const segments: SegmentSizing[] = ventRun.segments.map((s) => {
+    const spacing = s.material && s.orientation ? rulebook.supportSpacing.get(`${s.material}|${s.orientation}`) : undefined;
+    return {
+      segmentId: s.id,
+      requiredRiseIn: s.orientation === "horizontal" && typeof s.lengthFt === "number" && slope ? requiredRiseIn(s.lengthFt, slope.value) : null,
+      supportsNeeded: typeof s.lengthFt === "number" && spacing ? supportsNeeded(s.lengthFt, spacing.value) : null,
+    };
+  });
+  let maxHorizontal: number | null = null;
+  if (!isCommon && typeof ventRun.vent.heightFt === "number") {
+    const mats: ConnectorMaterial[] = [];
+    for (const s of ventRun.segments) if (s.orientation === "horizontal" && s.material && !mats.includes(s.material)) mats.push(s.material);
+    const lim = mats.length ? maxHorizontalConnectorFt(rulebook.connectorShare, mats, ventRun.vent.heightFt) : null;
+    maxHorizontal = lim ? lim.maxFt : null;
+  }
+  return { findings, sizing: { segments, maxHorizontalConnectorFt: maxHorizontal, capacity } };
+}
+
+/** Options of {@link evaluateCombustionAir}. */
+export interface CombustionAirOptions {
+  /** Connector diameter per appliance id, in; otherwise the outlet diameter is used for the single-opening floor. */
+  readonly connectorDiameterIn?: Readonly<Record<string, number>>;
+}
+
+/**
+ * Checks an air space: volume by the standard or known-infiltration method, indoor openings
+ * joining rooms, outdoor openings (combined with the indoor volume where the rulebook allows)
+ * and the minimum opening dimension. Direct-vent appliances are left out of the input total.
+ * @param airSpace the space as entered (parsed with `airSpaceSchema`)
+ * @param appliances all appliances; the space holds `airSpace.applianceIds` or all of them
+ * @param rulebook a rulebook from `prepareRulebook`
+ */
+export function evaluateCombustionAir(
+  airSpace: AirSpace,
+  appliances: readonly Appliance[],
+  rulebook: PreparedRulebook,
+  options?: CombustionAirOptions,
+): AirSpaceResult {
+  const findings: Finding[] = [];
+  const ctx = airContext(airSpace, appliances, rulebook, options?.connectorDiameterIn);
+  const openings: OpeningSizing[] = [];
+  const counted = checkIndoorOpenings(ctx, findings, openings);
+  const vol = checkAirVolume(ctx, counted, findings);
+  if (vol) checkOutdoorOpenings(ctx, vol.availableCuFt, vol.requirement.volumeCuFt, findings, openings);
+  checkAirOpeningDimension(ctx, findings);
+  return {
+    findings,
+    sizing: {
+      totalInputBtuh: ctx.inputMissing ? null : ctx.totalInputBtuh,
+      availableVolumeCuFt: vol ? vol.availableCuFt : null,
+      requirement: vol ? vol.requirement : null,
+      openings,
+    },
+  };
+}
+
+/**
+ * Checks one appliance's field readings: air-free flue CO, ambient CO, draft and spillage (not
+ * for direct-vent; spillage only for draft-hood appliances), temperature rise (furnaces) and
+ * clocked gas input.
+ * @param index position of this entry in the request's readings list, used in target paths
+ */
+export function evaluateReadings(readings: Readings, appliance: Appliance, rulebook: PreparedRulebook, index = 0): Finding[] {
+  const out: Finding[] = [];
+  const ctx: ReadingsContext = { r: readings, appliance, rb: rulebook, index };
+  checkAmbientCo(ctx, out);
+  checkCoAirFree(ctx, out);
+  checkDraft(ctx, out);
+  checkSpillage(ctx, out);
+  checkTemperatureRise(ctx, out);
+  checkInputRate(ctx, out);
+  return out;
+}
+
+/**
+ * An appliance left alone on a vent that was common (another appliance was removed): re-checks
+ * it against the single-appliance capacity table, minimum and maximum. The run should describe
+ * the vent as it is now; appliances listed in `removedApplianceIds` are left out of it.
+ */
+export function evaluateOrphanedAppliance(
+  ventRun: VentRun,
+  appliances: readonly Appliance[],
+  removedApplianceIds: readonly string[],
+  rulebook: PreparedRulebook,
+): Finding {
+  const remaining = servedAppliances(ventRun, appliances).filter((a) => !removedApplianceIds.includes(a.id));
+  const segments = ventRun.segments.filter((s) => !s.applianceId || !removedApplianceIds.includes(s.applianceId));
+  return checkOrphanedAppliance({ ...ventRun, segments }, remaining, appliances, rulebook);
+}
+
+/** Counts findings per status and finds the worst. */
+export function summarizeFindings(findings: readonly Finding[]): FindingSummary {
+  const counts: Record<FindingStatus, number> = { pass: 0, warn: 0, "needs-info": 0, fail: 0 };
+  for (const f of findings) counts[f.status]++;
+  let worst: FindingStatus | null = null;
+  for (const s of FINDING_STATUSES) if (counts[s] > 0) worst = s;
+  return { total: findings.length, counts, worst };
+}
+
+/**
+ * Runs every check of a check request: the vent run, the air space, each appliance's readings
+ * and, when appliances were removed from a common vent, the appliance left on it.
+ * @param input a request parsed with `checkInputSchema`
+ * @param rulebook a rulebook from `prepareRulebook`
+ */
+export function evaluateInspection(input: CheckInput, rulebook: PreparedRulebook): InspectionResult {
+  const findings: Finding[] = [];
+  const { appliances } = input;
+  let ventSizing: VentRunSizing | null = null;
+  let airSizing: AirSpaceSizing | null = null;
+  const removedIds = (input.removedAppliances ?? []).map((r) => r.id);
+  if (input.ventRun) {
+    if (removedIds.length > 0) {
+      const run = input.ventRun;
+      const current = { ...run, vent: { ...run.vent, serves: "single" as const } };
+      const r = evaluateVentRun(current, appliances.filter((a) => !removedIds.includes(a.id)), rulebook);
+      // The orphan finding replaces the plain capacity finding: it is the same table, read for the one left behind.
+      for (const f of r.findings) if (f.code !== "vent.capacity") findings.push(f);
+      findings.push(evaluateOrphanedAppliance(run, appliances, removedIds, rulebook));
+      ventSizing = r.sizing;
+    } else {
+      const r = evaluateVentRun(input.ventRun, appliances, rulebook);
+      findings.push(...r.findings);
+      ventSizing = r.sizing;
+    }
+  }
+  if (input.airSpace) {
+    const diam: Record<string, number> = {};
+    for (const s of input.ventRun?.segments ?? []) {
+      const id = s.applianceId ?? (appliances.length === 1 ? appliances[0]!.id : null);
+      if (id && typeof s.diameterIn === "number") diam[id] = Math.max(diam[id] ?? 0, s.diameterIn);
+    }
+    const r = evaluateCombustionAir(input.airSpace, appliances, rulebook, { connectorDiameterIn: diam });
+    findings.push(...r.findings);
+    airSizing = r.sizing;
+  }
+  const readings = input.readings ?? [];
+  for (let i = 0; i < readings.length; i++) {
+    const r = readings[i]!;
+    const a = appliances.find((x) => x.id === r.applianceId);
+    if (a) findings.push(...evaluateReadings(r, a, rulebook, i));
+  }
+  return { findings, sizing: { ventRun: ventSizing, airSpace: airSizing }, summary: summarizeFindings(findings), edition: rulebook.content.edition };
+}

@@ -1,0 +1,418 @@
+import { fmt } from "./format";
+import type { RuleRef } from "./rulebook/prepare";
+
+/** Outcome of one check. `needs-info` means a value the check needs is missing. */
+export type FindingStatus = "pass" | "fail" | "warn" | "needs-info";
+
+/** Statuses from best to worst. */
+export const FINDING_STATUSES = ["pass", "warn", "needs-info", "fail"] as const satisfies readonly FindingStatus[];
+
+/** Safety cautions that a UI and the PDF must make prominent. */
+export type SafetyFlag = "co" | "spillage" | "concealed_single_wall";
+
+/** Comparators used in required values. */
+export type Comparator = "≥" | "≤" | "<" | ">" | "=" | "between";
+
+/** A number with its unit. */
+export interface Quantity {
+  readonly value: number;
+  readonly unit: string;
+}
+
+/** A required value: `measured comparator value` must hold (`between` uses `upperValue`). */
+export interface Requirement extends Quantity {
+  readonly comparator: Comparator;
+  readonly upperValue?: number;
+}
+
+/** The input sections a finding can point at. */
+export type TargetSection = "appliances" | "ventRun" | "airSpace" | "readings" | "removedAppliances";
+
+/** The input field a finding concerns, for the UI to jump to. */
+export interface FindingTarget {
+  readonly section: TargetSection;
+  /** `id` of the segment, appliance, room, opening or readings entry; null for the section itself. */
+  readonly itemId: string | null;
+  /** Field name within the item, or null. */
+  readonly field: string | null;
+  /** Dotted path into the check input, e.g. `ventRun.segments.2.riseIn`. */
+  readonly path: string;
+}
+
+/** Every stable finding code. */
+export const FINDING_CODES = {
+  connectorSlope: "connector.slope",
+  connectorHorizontalLength: "connector.horizontal_length",
+  connectorLengthPerDiameter: "connector.length_per_diameter",
+  connectorDiameter: "connector.diameter",
+  ventCategory: "vent.category",
+  ventCapacity: "vent.capacity",
+  ventMinHeight: "vent.min_height",
+  clearanceCombustibles: "clearance.combustibles",
+  supportsSpacing: "supports.spacing",
+  jointsFasteners: "joints.fasteners",
+  jointsLocked: "joints.locked",
+  passageSingleWall: "passage.single_wall",
+  terminationHeight: "termination.height",
+  terminationDistance: "termination.distance",
+  airVolume: "air.volume",
+  airOpenings: "air.openings",
+  airOpeningDimension: "air.opening_dimension",
+  readingsCoAirFree: "readings.co_air_free",
+  readingsAmbientCo: "readings.ambient_co",
+  readingsDraft: "readings.draft",
+  readingsSpillage: "readings.spillage",
+  readingsTemperatureRise: "readings.temperature_rise",
+  readingsInputRate: "readings.input_rate",
+  commonVentOrphaned: "common_vent.orphaned",
+} as const;
+
+/** A finding code. */
+export type FindingCode = (typeof FINDING_CODES)[keyof typeof FINDING_CODES];
+
+/** The outcome of one check. */
+export interface Finding {
+  readonly code: FindingCode;
+  readonly status: FindingStatus;
+  readonly title: string;
+  /** Plain sentence: for a problem, what is wrong and how to fix it; for a pass, what was confirmed. */
+  readonly message: string;
+  readonly measured?: Quantity;
+  readonly required?: Requirement;
+  /** Citation text of the rulebook row used; null when the rulebook lacks the value. */
+  readonly citation: string | null;
+  /** The rulebook row used, for linking to the editor. */
+  readonly ruleRef: RuleRef | null;
+  readonly target: FindingTarget;
+  readonly safety: SafetyFlag | null;
+}
+
+/** Entry of the finding catalogue. */
+export interface FindingCatalogueEntry {
+  readonly title: string;
+  readonly description: string;
+}
+
+/** Every finding code with its title and what it checks, for documentation and the PDF. */
+export const FINDING_CATALOGUE = {
+  "connector.slope": {
+    title: "Connector slope",
+    description: "Each horizontal connector segment rises toward the vent by at least the rulebook's minimum per foot.",
+  },
+  "connector.horizontal_length": {
+    title: "Connector horizontal length",
+    description: "Total horizontal connector length stays within the rulebook's share of the vent height for the connector material.",
+  },
+  "connector.length_per_diameter": {
+    title: "Connector length per diameter",
+    description: "A connector into a common vent is no longer than the length per inch of diameter that the tables assume; beyond it capacity is reduced.",
+  },
+  "connector.diameter": {
+    title: "Connector and vent diameter",
+    description: "The connector is not smaller than the flue collar or draft-hood outlet, nor the vent smaller than allowed; a common vent is not smaller than its largest connector.",
+  },
+  "vent.category": {
+    title: "Venting category",
+    description: "The vent-run checks apply to Category I appliances (natural draft with a draft hood, or fan-assisted); other categories follow the manufacturer's instructions.",
+  },
+  "vent.capacity": {
+    title: "Vent capacity",
+    description: "The appliance input lies between the minimum and maximum of the capacity table for the vent's height, lateral and diameter, after derating for extra turns.",
+  },
+  "vent.min_height": {
+    title: "Vent height above collar",
+    description: "The vent reaches at least the rulebook's minimum height above the highest draft-hood outlet or flue collar.",
+  },
+  "clearance.combustibles": {
+    title: "Clearance to combustibles",
+    description: "Measured clearance of each connector segment meets the rulebook table, or the appliance manual's value where entered.",
+  },
+  "supports.spacing": {
+    title: "Supports",
+    description: "Each segment has at least as many supports as its length divided by the maximum support spacing.",
+  },
+  "joints.fasteners": {
+    title: "Fasteners per joint",
+    description: "Each joint has at least the rulebook's number of mechanical fasteners for the material.",
+  },
+  "joints.locked": {
+    title: "Sections locked",
+    description: "Every section and joint is locked or engaged as its listing requires.",
+  },
+  "passage.single_wall": {
+    title: "Where the connector passes",
+    description: "A connector does not pass through places the rulebook prohibits for its material (single-wall in attics, concealed spaces, floors, ceilings); walls only with a thimble.",
+  },
+  "termination.height": {
+    title: "Termination height",
+    description: "The vent ends high enough above the roof for the roof pitch, or at the fixed height where the pitch table does not apply.",
+  },
+  "termination.distance": {
+    title: "Termination distance",
+    description: "The termination is far enough from doors, operable windows and air inlets, or high enough above them.",
+  },
+  "air.volume": {
+    title: "Combustion-air volume",
+    description: "The air space holds the volume the standard or known-infiltration method requires for the appliances drawing room air.",
+  },
+  "air.openings": {
+    title: "Combustion-air openings",
+    description: "Indoor and outdoor openings give the free area each arrangement requires, allowing for the louver's free-area share.",
+  },
+  "air.opening_dimension": {
+    title: "Opening dimension",
+    description: "No air opening or duct is narrower than the rulebook's minimum dimension.",
+  },
+  "readings.co_air_free": {
+    title: "Flue CO (air-free)",
+    description: "Air-free CO computed from measured CO and O2 stays at or below the rulebook's limit for the appliance kind.",
+  },
+  "readings.ambient_co": {
+    title: "Ambient CO",
+    description: "Ambient CO in the appliance space is below the rulebook's stop level; a caution is shown from the marginal level.",
+  },
+  "readings.draft": {
+    title: "Draft",
+    description: "Steady-state draft is at least as strong (as negative) as the rulebook's limit.",
+  },
+  "readings.spillage": {
+    title: "Spillage",
+    description: "Spillage at the draft hood stops within the rulebook's maximum time.",
+  },
+  "readings.temperature_rise": {
+    title: "Temperature rise",
+    description: "Supply minus return temperature lies within the rating-plate range.",
+  },
+  "readings.input_rate": {
+    title: "Gas input (clocked)",
+    description: "Input from meter clocking is within the rulebook's tolerance of the rated input.",
+  },
+  "common_vent.orphaned": {
+    title: "Appliance left on a common vent",
+    description: "An appliance left alone on a vent that was common is re-checked against the single-appliance capacity table, minimum and maximum.",
+  },
+} as const satisfies Record<FindingCode, FindingCatalogueEntry>;
+
+const n = fmt;
+const ft = (v: number) => `${n(v)} ft`;
+const inch = (v: number) => `${n(v)} in`;
+const btuh = (v: number) => `${n(v, 0)} Btu/h`;
+const HUMAN: Record<string, string> = { single_wall: "single-wall", type_b: "Type B", masonry_lined: "lined masonry" };
+const human = (s: string) => HUMAN[s] ?? s.replace(/_/g, " ");
+const plural = (count: number, one: string, many: string) => `${n(count, 0)} ${count === 1 ? one : many}`;
+
+/** Message templates, one group per finding code. */
+export const MESSAGES = {
+  missingRule: (what: string, table: string) =>
+    `The rulebook has no value for ${what}; add it to the "${table}" table to run this check.`,
+  connectorSlope: {
+    pass: (riseIn: number, lengthFt: number, requiredIn: number) =>
+      `Rises ${inch(riseIn)} over ${ft(lengthFt)} of horizontal run; at least ${inch(requiredIn)} is needed.`,
+    fail: (riseIn: number, lengthFt: number, requiredIn: number, slope: number) =>
+      `Rises only ${inch(riseIn)} over ${ft(lengthFt)}; it needs at least ${inch(requiredIn)} (${n(slope, 3)} in per ft). Re-hang it to rise ${inch(requiredIn - riseIn)} more toward the vent.`,
+    needsInfo: () => "Enter this horizontal segment's length and its rise to check the slope.",
+  },
+  connectorHorizontalLength: {
+    pass: (totalFt: number, maxFt: number, share: number, heightFt: number, material: string) =>
+      `Horizontal connector length ${ft(totalFt)} is within ${ft(maxFt)} (${n(share * 100, 1)} % of the ${ft(heightFt)} vent height for ${human(material)}).`,
+    fail: (totalFt: number, maxFt: number, share: number, heightFt: number, material: string) =>
+      `Horizontal connector length ${ft(totalFt)} exceeds ${ft(maxFt)} (${n(share * 100, 1)} % of the ${ft(heightFt)} vent height for ${human(material)}). Shorten the horizontal run, make the vent taller, or use a connector material the rulebook allows longer.`,
+    needsInfo: () => "Enter the vent height and the material and length of every horizontal segment to check the connector length.",
+  },
+  connectorLengthPerDiameter: {
+    pass: (label: string, lengthFt: number, maxFt: number, diameterIn: number) =>
+      `The connector of ${label} is ${ft(lengthFt)}; the common-vent tables assume up to ${ft(maxFt)} for a ${inch(diameterIn)} connector.`,
+    warn: (label: string, lengthFt: number, maxFt: number, diameterIn: number, lossPct: number) =>
+      `The connector of ${label} is ${ft(lengthFt)}, longer than the ${ft(maxFt)} the tables assume for ${inch(diameterIn)}. Reduce the common vent's maximum capacity by ${n(lossPct, 1)} % when sizing, or shorten the connector.`,
+    needsInfo: (label: string) => `Enter the length and diameter of every segment of the connector of ${label}.`,
+  },
+  connectorDiameter: {
+    pass: (diameterIn: number, outletIn: number, label: string) =>
+      `Connector ${inch(diameterIn)} is not smaller than the ${inch(outletIn)} outlet of ${label}.`,
+    fail: (diameterIn: number, outletIn: number, label: string) =>
+      `Connector ${inch(diameterIn)} is smaller than the ${inch(outletIn)} outlet of ${label}. Use pipe of at least ${inch(outletIn)} unless the appliance instructions allow a reduction.`,
+    needsInfo: (label: string) => `Enter the connector diameter and the outlet diameter of ${label}.`,
+    ventPass: (ventIn: number, outletIn: number) => `Vent ${inch(ventIn)} is not smaller than the ${inch(outletIn)} appliance outlet.`,
+    ventReduced: (ventIn: number, outletIn: number, heightFt: number) =>
+      `Vent ${inch(ventIn)} is one size smaller than the ${inch(outletIn)} outlet on a ${ft(heightFt)} vent. This is only acceptable within the reduction rules of your code (never a 3 in vent on a 4 in draft hood; fan-assisted maximum reduced); confirm the capacity with the table.`,
+    ventFail: (ventIn: number, outletIn: number, minHeightFt: number | null) =>
+      `Vent ${inch(ventIn)} is smaller than the ${inch(outletIn)} appliance outlet. ${minHeightFt === null ? "The rulebook sets no height at which a smaller vent may be considered" : `A smaller vent is considered only one size down on a vent at least ${ft(minHeightFt)} high`}; use a vent of at least ${inch(outletIn)}.`,
+    outletCitation:
+      "Appliance outlet (flue collar or draft-hood outlet) as entered; not smaller unless the appliance instructions allow",
+    commonPass: (ventIn: number, connectorIn: number) =>
+      `Common vent ${inch(ventIn)} is not smaller than the largest connector (${inch(connectorIn)}).`,
+    commonFail: (ventIn: number, connectorIn: number) =>
+      `Common vent ${inch(ventIn)} is smaller than the largest connector (${inch(connectorIn)}). Its area must be at least that of the largest connector: use a larger common vent.`,
+    ventNeedsInfo: () => "Enter the vent diameter and the appliance outlet diameter.",
+  },
+  ventCategory: {
+    notCategoryI: (label: string, what: string) =>
+      `${label} is ${what}; its venting follows the manufacturer's instructions, which Flueward's Category I vent checks do not cover. Check the vent against those instructions.`,
+    needsInfo: (label: string) => `Enter the venting category and draft type of ${label} to run the vent checks.`,
+  },
+  ventCapacity: {
+    pass: (inputBtuh: number, minBtuh: number | null, maxBtuh: number, d: number, heightFt: number, lateralFt: number, note: string) =>
+      `${btuh(inputBtuh)} is within ${minBtuh === null ? "" : `${btuh(minBtuh)}–`}${btuh(maxBtuh)} for a ${inch(d)} vent ${ft(heightFt)} high with ${ft(lateralFt)} lateral${note}.`,
+    overMax: (inputBtuh: number, maxBtuh: number, d: number, heightFt: number, lateralFt: number, note: string, fix: string) =>
+      `${btuh(inputBtuh)} exceeds the ${btuh(maxBtuh)} maximum for a ${inch(d)} vent ${ft(heightFt)} high with ${ft(lateralFt)} lateral${note}. ${fix}`,
+    underMin: (inputBtuh: number, minBtuh: number, d: number, heightFt: number, lateralFt: number, fix: string) =>
+      `${btuh(inputBtuh)} is below the ${btuh(minBtuh)} minimum for a fan-assisted appliance on a ${inch(d)} vent ${ft(heightFt)} high with ${ft(lateralFt)} lateral: the vent is too large and may condense. ${fix}`,
+    notListed: (d: number, heightFt: number, lateralFt: number, draft: string, fix: string) =>
+      `The capacity table gives no ${draft} value for a ${inch(d)} vent ${ft(heightFt)} high with ${ft(lateralFt)} lateral, so this size is not permitted. ${fix}`,
+    outsideTable: (what: string) =>
+      `${what} Flueward does not extrapolate beyond the table; size this vent from the full table in your code book or the vent maker's instructions.`,
+    noTable: (ventMaterial: string, connectorMaterial: string, d: number) =>
+      `The rulebook's capacity table has no rows for a ${inch(d)} ${human(ventMaterial)} vent with ${human(connectorMaterial)} connector; add them or size the vent from your code book.`,
+    common: () =>
+      "A common vent is sized from the multiple-appliance tables, which this rulebook does not hold. Size it from your code book or the vent maker's tables and record the result.",
+    needsInfo: () => "Enter the appliance input, the vent material, diameter and height, the connector material, and the laterals to check vent capacity.",
+    fixSmallest: (d: number) => `The smallest diameter the table allows is ${inch(d)}.`,
+    fixNone: () => "No diameter in the table fits; change the vent height or lateral, or the appliance.",
+    derated: (pct: number) => `, after a ${n(pct, 1)} % reduction for extra turns`,
+    interpolated: () => ", interpolated between table rows",
+    conservative: () => ", from the conservative table rows",
+  },
+  ventMinHeight: {
+    pass: (heightFt: number, minFt: number) => `The vent is ${ft(heightFt)} above the highest collar or draft hood; at least ${ft(minFt)} is needed.`,
+    fail: (heightFt: number, minFt: number) =>
+      `The vent is only ${ft(heightFt)} above the highest collar or draft hood; it must reach at least ${ft(minFt)}. Extend the vent.`,
+    needsInfo: () => "Enter the vent height from the highest collar or draft hood to the top of the vent.",
+  },
+  clearance: {
+    pass: (measuredIn: number, requiredIn: number) => `Clearance ${inch(measuredIn)} meets the required ${inch(requiredIn)}.`,
+    fail: (measuredIn: number, requiredIn: number) =>
+      `Clearance ${inch(measuredIn)} is less than the required ${inch(requiredIn)}. Move the pipe or the combustible material, or use a listed clearance-reduction system.`,
+    needsInfo: () => "Measure the clearance from this segment to the nearest combustible material.",
+    needsMaterial: () => "Enter the segment's material and the appliance's listing to find the required clearance.",
+  },
+  supports: {
+    pass: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
+      `${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing.`,
+    fail: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
+      `Only ${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing. Add ${n(needed - installed, 0)} so the pipe cannot sag or separate.`,
+    needsInfo: () => "Enter the segment's length and the number of supports installed.",
+  },
+  fasteners: {
+    pass: (count: number, min: number) =>
+      min === 0 ? `${plural(count, "fastener", "fasteners")} at each joint; the rulebook asks for none beyond the listed joint.` : `${plural(count, "fastener", "fasteners")} at each joint; at least ${n(min, 0)} needed.`,
+    fail: (count: number, min: number) =>
+      `Only ${plural(count, "fastener", "fasteners")} at a joint; each joint needs at least ${n(min, 0)}. Add screws or rivets (never through the inner wall of Type B); tape is not a fastener.`,
+    needsInfo: () => "Enter the fewest fasteners found at any joint of this segment.",
+  },
+  locked: {
+    pass: () => "Every section of this segment is locked.",
+    fail: () => "A section of this segment is not locked. Engage every joint and seam as the pipe's listing requires.",
+    needsInfo: () => "Confirm whether every section of this segment is locked.",
+  },
+  passage: {
+    pass: (material: string, passage: string) => `A ${human(material)} connector may pass through ${passage === "none" ? "open space" : `a ${human(passage)}`} under this rulebook.`,
+    fail: (material: string, passage: string, note: string) =>
+      `A ${human(material)} connector may not pass through a ${human(passage)}. Replace this segment with Type B (or listed) pipe, or reroute it.${note ? ` ${note}` : ""}`,
+    thimble: (material: string) =>
+      `A ${human(material)} connector passes through a wall without a listed ventilated thimble. Fit the thimble or reroute.`,
+    thimbleNeedsInfo: () => "Confirm whether a listed ventilated thimble is fitted where this segment passes through the wall.",
+    thimbleOk: (material: string) => `A ${human(material)} connector passes through a wall with a listed thimble.`,
+    needsInfo: () => "Enter what this segment passes through (or none).",
+  },
+  terminationHeight: {
+    pass: (heightFt: number, minFt: number, why: string) => `The vent ends ${ft(heightFt)} above the roof; ${why} requires at least ${ft(minFt)}.`,
+    fail: (heightFt: number, minFt: number, why: string) =>
+      `The vent ends only ${ft(heightFt)} above the roof; ${why} requires at least ${ft(minFt)}. Extend the vent.`,
+    pitchRow: (pitch: number) => `a roof of ${n(pitch)}/12 pitch`,
+    fixed: (reason: string) => `a vent ${reason}`,
+    nearbyFail: (aboveFt: number, minFt: number) =>
+      `The vent is only ${ft(aboveFt)} above a part of the building within 10 ft; it must be at least ${ft(minFt)} above. Extend the vent.`,
+    outsidePitch: (pitch: number, maxPitch: number) =>
+      `The ${n(pitch)}/12 roof is steeper than the table's last row (${n(maxPitch)}/12); find the height in your code book.`,
+    needsInfo: () => "Enter the roof pitch, the height above the roof, the cap size (or listed cap) and the distance to the nearest vertical wall.",
+    needsNearby: () => "Enter the height above any part of the building within 10 ft: the roof-pitch table does not apply to this vent.",
+  },
+  terminationDistance: {
+    pass: (what: string, distanceFt: number, minFt: number) => `The ${what} is ${ft(distanceFt)} away; at least ${ft(minFt)} is needed.`,
+    passAbove: (what: string, aboveFt: number, aboveMinFt: number) =>
+      `The termination is ${ft(aboveFt)} above the ${what}; at least ${ft(aboveMinFt)} above is accepted.`,
+    fail: (what: string, distanceFt: number, minFt: number, aboveMinFt: number | null) =>
+      `The termination is only ${ft(distanceFt)} from the ${what}; it must be at least ${ft(minFt)} away${aboveMinFt === null ? "" : ` or at least ${ft(aboveMinFt)} above it`}. Move the termination.`,
+    needsInfo: (what: string) => `Enter the distance from the termination to the ${what} (and how far above it the termination is).`,
+  },
+  airVolume: {
+    pass: (availableCuFt: number, requiredCuFt: number, method: string) =>
+      `The space holds ${n(availableCuFt, 0)} ft³; the ${method} requires ${n(requiredCuFt, 0)} ft³. Indoor air is enough.`,
+    fail: (availableCuFt: number, requiredCuFt: number, method: string) =>
+      `The space holds ${n(availableCuFt, 0)} ft³ but the ${method} requires ${n(requiredCuFt, 0)} ft³. Join more rooms through openings, or bring in outdoor air.`,
+    shortWithOutdoor: (availableCuFt: number, requiredCuFt: number, method: string) =>
+      `The space holds ${n(availableCuFt, 0)} ft³ of the ${n(requiredCuFt, 0)} ft³ the ${method} requires; the outdoor openings must make up the rest (see the opening checks).`,
+    none: () => "No appliance in this space draws room air (direct-vent appliances are left out); no combustion-air volume is needed.",
+    needsInfo: () => "Enter every room's dimensions (or volume) and the input of each appliance in the space.",
+    standard: "standard method",
+    infiltration: (ach: number) => `known-infiltration method at ${n(ach, 2)} ACH`,
+  },
+  airOpenings: {
+    pass: (freeSqIn: number, requiredSqIn: number, what: string) =>
+      `The ${what} gives ${n(freeSqIn, 1)} in² of free area; at least ${n(requiredSqIn, 1)} in² is needed.`,
+    fail: (freeSqIn: number, requiredSqIn: number, what: string, grossSqIn: number | null) =>
+      `The ${what} gives only ${n(freeSqIn, 1)} in² of free area; at least ${n(requiredSqIn, 1)} in² is needed.${grossSqIn === null ? "" : ` With this louver that is a gross opening of at least ${n(grossSqIn, 1)} in².`}`,
+    count: (what: string, found: number, needed: number) =>
+      `The ${what} arrangement needs ${n(needed, 0)} openings (one within 12 in of the top, one within 12 in of the bottom); ${n(found, 0)} given. Add the missing opening.`,
+    notNeeded: () => "Indoor air is enough; outdoor openings are not required.",
+    outdoorMissing: () => "Indoor air is not enough and no outdoor opening is given. Add outdoor openings sized by one of the rulebook's methods.",
+    needsInfo: (what: string) => `Enter the ${what}'s width and height (or diameter, or stated free area) and its louver.`,
+    needsShare: (what: string) => `Enter the free-area share stated by the maker of the ${what}'s louver.`,
+    noRoom: (what: string) => `Say which room the ${what} joins to the appliance's space.`,
+  },
+  airOpeningDimension: {
+    pass: (dimIn: number, minIn: number) => `The smallest dimension is ${inch(dimIn)}; at least ${inch(minIn)} is needed.`,
+    fail: (dimIn: number, minIn: number) => `The smallest dimension is only ${inch(dimIn)}; no opening or duct may be narrower than ${inch(minIn)}. Enlarge it.`,
+    needsInfo: () => "Enter the opening's width and height, or its diameter.",
+  },
+  readingsCoAirFree: {
+    pass: (coAf: number, limit: number) => `Air-free CO is ${n(coAf, 0)} ppm; the limit is ${n(limit, 0)} ppm.`,
+    fail: (coAf: number, limit: number) =>
+      `Air-free CO is ${n(coAf, 0)} ppm, above the ${n(limit, 0)} ppm limit. Do not leave the appliance running: find the cause (combustion air, burner, heat exchanger, venting) and retest.`,
+    badO2: (o2: number) => `An O2 reading of ${n(o2, 1)} % means the probe is not sampling flue gases; reposition the probe and read again.`,
+    needsInfo: () => "Enter the flue CO (ppm) and O2 (%) measured after the burner has run steadily.",
+    noLimit: (kind: string) => `The rulebook has no flue CO limit for ${human(kind)} appliances; add one to the "Flue CO limits" table.`,
+  },
+  readingsAmbientCo: {
+    pass: (ppm: number, marginal: number) => `Ambient CO is ${n(ppm, 0)} ppm, below the ${n(marginal, 0)} ppm caution level.`,
+    warn: (ppm: number, marginal: number, max: number) =>
+      `Ambient CO is ${n(ppm, 0)} ppm: at or above the ${n(marginal, 0)} ppm caution level (stop at ${n(max, 0)} ppm). Find the source before finishing.`,
+    fail: (ppm: number, max: number) =>
+      `Ambient CO is ${n(ppm, 0)} ppm, at or above the ${n(max, 0)} ppm stop level. Ventilate, get occupants out if needed, find and fix the source before continuing.`,
+    needsInfo: () => "Measure ambient CO in the appliance space.",
+  },
+  readingsDraft: {
+    pass: (draft: number, limit: number) => `Draft ${n(draft, 3)} in. w.c. is at least as strong as ${n(limit, 3)} in. w.c.`,
+    fail: (draft: number, limit: number) =>
+      `Draft ${n(draft, 3)} in. w.c. is weaker than ${n(limit, 3)} in. w.c. Check for a blocked or undersized vent, depressurisation of the space, or insufficient vent height.`,
+    needsInfo: () => "Measure the steady-state draft.",
+  },
+  readingsSpillage: {
+    pass: (s: number, max: number) => `Spillage stopped after ${n(s, 0)} s; at most ${n(max, 0)} s is allowed.`,
+    fail: (s: number, max: number) =>
+      `Spillage lasted ${n(s, 0)} s, longer than ${n(max, 0)} s. Find the cause (blocked vent, depressurisation, combustion air) and fix it before leaving.`,
+    needsInfo: () => "Run a spillage test at the draft hood and enter the seconds until spillage stopped.",
+  },
+  readingsTemperatureRise: {
+    pass: (rise: number, min: number, max: number) => `Temperature rise ${n(rise, 1)} °F is within the ${n(min, 0)}–${n(max, 0)} °F rating-plate range.`,
+    low: (rise: number, min: number, max: number) =>
+      `Temperature rise ${n(rise, 1)} °F is below the ${n(min, 0)}–${n(max, 0)} °F range: too much airflow or low input. Check blower speed and gas input.`,
+    high: (rise: number, min: number, max: number) =>
+      `Temperature rise ${n(rise, 1)} °F is above the ${n(min, 0)}–${n(max, 0)} °F range: too little airflow or over-firing. Check filter, duct restrictions, blower speed and gas input.`,
+    needsInfo: () => "Enter the supply and return temperatures and the rating-plate temperature-rise range.",
+  },
+  readingsInputRate: {
+    pass: (measured: number, rated: number, diffPct: number, tol: number) =>
+      `Clocked input ${btuh(measured)} is within ${n(tol, 1)} % of the rated ${btuh(rated)} (${n(diffPct, 1)} %).`,
+    warn: (measured: number, rated: number, diffPct: number, tol: number) =>
+      `Clocked input ${btuh(measured)} differs from the rated ${btuh(rated)} by ${n(diffPct, 1)} %, more than ${n(tol, 1)} %. Check manifold pressure, orifices and the heating value, and adjust.`,
+    needsInfo: () => "Enter the meter dial size, the seconds per revolution, the gas heating value and the rated input.",
+  },
+  commonVentOrphaned: {
+    pass: (label: string, inner: string) => `Re-checked alone on the former common vent: ${label}: ${inner}`,
+    fail: (label: string, inner: string) => `${label}, now alone on the former common vent: ${inner} Resize or reline the vent for this appliance.`,
+    needsInfo: (label: string, inner: string) => `${label}, now alone on the former common vent: ${inner}`,
+    noneLeft: () => "No appliance is left on the vent; cap or remove it.",
+    several: () => "More than one appliance is still on the vent; it is still common and is checked as such.",
+  },
+} as const;

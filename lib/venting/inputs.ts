@@ -1,0 +1,222 @@
+import { z } from "zod";
+import {
+  AIR_OPENING_KINDS,
+  APPLIANCE_KINDS,
+  CONNECTOR_MATERIALS,
+  DRAFT_TYPES,
+  FUELS,
+  LOUVER_TYPES,
+  OPENING_POSITIONS,
+  ORIENTATIONS,
+  PASSAGES,
+  TERMINATION_OPENINGS,
+  VENT_CATEGORIES,
+  VENT_MATERIALS,
+} from "./enums";
+
+/**
+ * Inputs of the engine. Every measured or observed field is optional and nullable so that a
+ * half-filled draft still evaluates; a check that needs a missing value reports `needs-info`.
+ */
+
+const id = z.string().min(1).max(100);
+/** A measured quantity that cannot be negative. */
+const measured = z.number().min(0).nullish();
+/** A whole count that cannot be negative. */
+const count = z.int().min(0).nullish();
+
+/** A gas appliance. */
+export const applianceSchema = z.object({
+  id,
+  label: z.string().max(200).default(""),
+  kind: z.enum(APPLIANCE_KINDS).nullish(),
+  fuel: z.enum(FUELS).nullish(),
+  /** Rated input from the rating plate, Btu/h. */
+  inputBtuh: measured,
+  category: z.enum(VENT_CATEGORIES).nullish(),
+  draft: z.enum(DRAFT_TYPES).nullish(),
+  /** Flue collar or draft-hood outlet diameter, in. */
+  outletDiameterIn: z.number().positive().nullish(),
+  /** Listed by a testing agency. */
+  listed: z.boolean().nullish(),
+  /** Connector clearance to combustibles stated in the appliance's instructions, in; governs when given. */
+  manualClearanceIn: measured,
+  condensing: z.boolean().nullish(),
+});
+
+/** One piece of vent connector between the appliance outlet and the vent. */
+export const connectorSegmentSchema = z.object({
+  id,
+  /** Appliance this connector belongs to; may be omitted when the run serves one appliance. */
+  applianceId: id.nullish(),
+  material: z.enum(CONNECTOR_MATERIALS).nullish(),
+  diameterIn: z.number().positive().nullish(),
+  /** Length along the pipe, ft. */
+  lengthFt: measured,
+  orientation: z.enum(ORIENTATIONS).nullish(),
+  /** Rise over the segment's length when horizontal, in. */
+  riseIn: z.number().nullish(),
+  turns45: count,
+  turns90: count,
+  /** Measured clearance to the nearest combustible material, in. */
+  clearanceIn: measured,
+  supportsInstalled: count,
+  /** Fewest fasteners found at any joint of the segment. */
+  fastenersPerJoint: count,
+  joints: count,
+  /** Every section locked (seams and joints engaged as listed). */
+  sectionsLocked: z.boolean().nullish(),
+  passesThrough: z.enum(PASSAGES).nullish(),
+  /** A listed ventilated thimble where the segment passes through a wall. */
+  thimble: z.boolean().nullish(),
+});
+
+/** The vent the connectors join. */
+export const ventSchema = z.object({
+  material: z.enum(VENT_MATERIALS).nullish(),
+  diameterIn: z.number().positive().nullish(),
+  /** From the highest draft-hood outlet or flue collar to the top of the vent, ft. */
+  heightFt: measured,
+  /** Horizontal offset in the vent itself, ft. */
+  lateralFt: measured,
+  turns45: count,
+  turns90: count,
+  serves: z.enum(["single", "common"]).nullish(),
+});
+
+/** A building opening near the termination. */
+export const terminationOpeningSchema = z.object({
+  id,
+  kind: z.enum(TERMINATION_OPENINGS),
+  /** Shortest distance from the termination to the opening, ft. */
+  distanceFt: measured,
+  /** How far the termination is above the opening, ft (negative when below). */
+  ventAboveFt: z.number().nullish(),
+});
+
+/** Where the vent ends. */
+export const terminationSchema = z.object({
+  /** Roof pitch as rise in inches per 12 in of run. */
+  roofPitchPer12: measured,
+  /** Height of the lowest discharge opening above the roof where the vent passes through, ft. */
+  heightAboveRoofFt: measured,
+  /** Size of the vent cap, in; with `listedCap`, whether the roof-pitch table applies. */
+  capSizeIn: z.number().positive().nullish(),
+  listedCap: z.boolean().nullish(),
+  distanceToVerticalWallFt: measured,
+  /** Height above any part of the building within 10 ft, ft (needed outside the pitch table). */
+  heightAboveNearbyStructureFt: z.number().nullish(),
+  nearbyOpenings: z.array(terminationOpeningSchema).default([]),
+});
+
+/** Everything from the appliance outlet(s) to the termination. */
+export const ventRunSchema = z.object({
+  id: id.default("vent-run"),
+  /** Appliances served; when omitted, every non-direct-vent appliance of the inspection. */
+  applianceIds: z.array(id).nullish(),
+  segments: z.array(connectorSegmentSchema).default([]),
+  vent: ventSchema.default({}),
+  termination: terminationSchema.nullish(),
+});
+
+/** A room of an air space. */
+export const roomSchema = z.object({
+  id,
+  label: z.string().max(200).default(""),
+  lengthFt: measured,
+  widthFt: measured,
+  heightFt: measured,
+  /** Volume when the room is not a simple box, ft³; used in place of the dimensions. */
+  volumeCuFt: measured,
+  /** Joined to the appliance room without a door (one open space). */
+  openToApplianceRoom: z.boolean().nullish(),
+});
+
+/** A proposed or existing combustion-air opening. */
+export const airOpeningSchema = z.object({
+  id,
+  kind: z.enum(AIR_OPENING_KINDS),
+  /** For indoor openings: the room it joins to the appliance's space. */
+  roomId: id.nullish(),
+  position: z.enum(OPENING_POSITIONS).nullish(),
+  widthIn: measured,
+  heightIn: measured,
+  /** For round ducts instead of width × height, in. */
+  diameterIn: measured,
+  louver: z.enum(LOUVER_TYPES).default("none"),
+  /** Free-area share stated by the louver maker (0–1); required for `other`. */
+  freeAreaShare: z.number().min(0).max(1).nullish(),
+  /** Free area stated outright, in²; takes the place of dimensions × share. */
+  freeAreaSqIn: measured,
+});
+
+/** A room or set of connected rooms supplying combustion air. */
+export const airSpaceSchema = z.object({
+  id: id.default("air-space"),
+  /** Room holding the appliances; defaults to the first room. */
+  applianceRoomId: id.nullish(),
+  rooms: z.array(roomSchema).default([]),
+  /** Appliances in the space; when omitted, every appliance of the inspection. */
+  applianceIds: z.array(id).nullish(),
+  /** Known air changes per hour of the building, when measured. */
+  airChangesPerHour: z.number().positive().nullish(),
+  openings: z.array(airOpeningSchema).default([]),
+});
+
+/** Field readings for one appliance. */
+export const readingsSchema = z.object({
+  applianceId: id,
+  /** Draft at steady state, in. w.c. (negative is draft toward the vent). */
+  draftInWc: z.number().nullish(),
+  /** Seconds of spillage at the draft hood before the draft was established. */
+  spillageSeconds: measured,
+  /** Flue CO as measured (not air-free), ppm. */
+  flueCoPpm: measured,
+  /** Flue O2, %. */
+  flueO2Pct: z.number().min(0).max(100).nullish(),
+  /** Ambient CO in the appliance space, ppm. */
+  ambientCoPpm: measured,
+  supplyTempF: z.number().nullish(),
+  returnTempF: z.number().nullish(),
+  /** Temperature-rise range on the rating plate, °F. */
+  nameplateRiseMinF: z.number().nullish(),
+  nameplateRiseMaxF: z.number().nullish(),
+  /** Gas meter test dial size, ft³ per revolution. */
+  meterDialCuFt: z.number().positive().nullish(),
+  meterSecondsPerRev: z.number().positive().nullish(),
+  /** Heating value of the gas from the utility or supplier, Btu/ft³. */
+  heatingValueBtuPerCuFt: z.number().positive().nullish(),
+});
+
+/** An appliance taken off a previously common vent. */
+export const removedApplianceSchema = z.object({
+  id,
+  label: z.string().max(200).default(""),
+  inputBtuh: measured,
+});
+
+/** A complete check request: the appliances with an optional vent run, air space and readings. */
+export const checkInputSchema = z.object({
+  appliances: z.array(applianceSchema).min(1),
+  ventRun: ventRunSchema.nullish(),
+  airSpace: airSpaceSchema.nullish(),
+  /** One entry per appliance, matched by `applianceId`. */
+  readings: z.array(readingsSchema).nullish(),
+  /** Appliances removed from a vent that was common; the ones left are re-checked alone. */
+  removedAppliances: z.array(removedApplianceSchema).nullish(),
+});
+
+export type Appliance = z.infer<typeof applianceSchema>;
+export type ConnectorSegment = z.infer<typeof connectorSegmentSchema>;
+export type Vent = z.infer<typeof ventSchema>;
+export type TerminationOpeningInput = z.infer<typeof terminationOpeningSchema>;
+export type Termination = z.infer<typeof terminationSchema>;
+export type VentRun = z.infer<typeof ventRunSchema>;
+export type Room = z.infer<typeof roomSchema>;
+export type AirOpening = z.infer<typeof airOpeningSchema>;
+export type AirSpace = z.infer<typeof airSpaceSchema>;
+export type Readings = z.infer<typeof readingsSchema>;
+export type RemovedAppliance = z.infer<typeof removedApplianceSchema>;
+export type CheckInput = z.infer<typeof checkInputSchema>;
+/** A check request before defaults are applied (what a client sends). */
+export type CheckInputRaw = z.input<typeof checkInputSchema>;

@@ -1,0 +1,247 @@
+import type { z } from "zod";
+import { PARAMETER_DEFINITIONS, type ParameterDefinition } from "./parameters";
+import {
+  RULEBOOK_TABLES,
+  RULEBOOK_TABLE_KEYS,
+  rulebookContentSchema,
+  type ColumnDefinition,
+  type RulebookContent,
+  type RulebookTableKey,
+} from "./tables";
+
+/** One problem found in a rulebook, pointing at the table cell to fix. */
+export interface RulebookIssue {
+  /** Table key, or null for a top-level field such as `edition`. */
+  readonly table: RulebookTableKey | null;
+  /** Zero-based row index, or null for a table-level or top-level problem. */
+  readonly rowIndex: number | null;
+  /** Column key, or null when the whole row is concerned. */
+  readonly column: string | null;
+  /** Plain sentence saying what is wrong and how to fix it. */
+  readonly message: string;
+  /** Errors make the rulebook unusable for checks; warnings are worth a look. */
+  readonly severity: "error" | "warning";
+}
+
+/** Message templates for rulebook validation. */
+export const RULEBOOK_MESSAGES = {
+  missingCitation: (row: number) =>
+    `Row ${row}: add the citation (code section, manual page) this value comes from.`,
+  negative: (row: number, label: string, value: number) =>
+    `Row ${row}: ${label} is ${value}; it must not be negative.`,
+  belowMin: (row: number, label: string, value: number, min: number) =>
+    `Row ${row}: ${label} is ${value}; it must be at least ${min}.`,
+  aboveMax: (row: number, label: string, value: number, max: number) =>
+    `Row ${row}: ${label} is ${value}; it must be at most ${max}.`,
+  shareOutOfRange: (row: number, label: string, value: number) =>
+    `Row ${row}: ${label} is ${value}; a share is a number from 0 to 1 (75 % is 0.75).`,
+  notWhole: (row: number, label: string, value: number) =>
+    `Row ${row}: ${label} is ${value}; enter a whole number.`,
+  duplicate: (row: number, firstRow: number, columns: string) =>
+    `Row ${row} repeats row ${firstRow} (same ${columns}); remove one or change it.`,
+  unitMismatch: (row: number, key: string, unit: string, expected: string) =>
+    `Row ${row}: ${key} is measured in "${expected}", not "${unit}"; convert the value and set the unit to "${expected}".`,
+  flagNotBinary: (row: number, key: string, value: number) =>
+    `Row ${row}: ${key} is a yes/no flag; enter 1 for yes or 0 for no (found ${value}).`,
+  pitchRange: (row: number, from: number, to: number) =>
+    `Row ${row}: pitch to (${to}/12) must be above pitch from (${from}/12).`,
+  pitchOrder: (row: number, prevRow: number) =>
+    `Row ${row} starts below row ${prevRow}; sort the roof pitches from flat to steep.`,
+  pitchGap: (row: number, from: number, prevRow: number, prevTo: number) =>
+    `Row ${row} starts at ${from}/12 but row ${prevRow} ends at ${prevTo}/12; make each row start where the previous one ends.`,
+  pitchHeightFalls: (row: number, prevRow: number) =>
+    `Row ${row} asks for less height than row ${prevRow} on a steeper roof; check the values.`,
+  firstPitchNotFlat: (from: number) =>
+    `The first row starts at ${from}/12; start it at 0 so flat roofs are covered.`,
+  capacityMinAboveMax: (row: number, min: number, max: number) =>
+    `Row ${row}: fan-assisted min (${min} Btu/h) is above the fan-assisted max (${max} Btu/h); swap or correct them.`,
+  capacityEmpty: (row: number) =>
+    `Row ${row} has no capacity value at all; fill in at least one, or remove the row.`,
+  capacityGridHole: (ventMaterial: string, connectorMaterial: string, diameterIn: number, heightFt: number, lateralFt: number) =>
+    `The ${ventMaterial} vent / ${connectorMaterial} connector table at ${diameterIn} in has no row for height ${heightFt} ft with lateral ${lateralFt} ft; add it so values between rows can be interpolated.`,
+  wrongType: (row: number, label: string, expected: string) =>
+    `Row ${row}: ${label} must be ${expected}.`,
+  badOption: (row: number, label: string, options: readonly string[]) =>
+    `Row ${row}: ${label} must be one of ${options.join(", ")}.`,
+  missingTable: (title: string) => `The table "${title}" is missing; add it (it may be empty).`,
+  edition: () => "State the edition (code and year, or the company's own revision) this rulebook follows.",
+  generic: (row: number | null, message: string) => (row === null ? message : `Row ${row}: ${message}`),
+} as const;
+
+function columnOf(table: RulebookTableKey, key: string): ColumnDefinition | undefined {
+  const cols: readonly ColumnDefinition[] = RULEBOOK_TABLES[table].columns;
+  return cols.find((c) => c.key === key);
+}
+
+function mapZodIssue(issue: z.core.$ZodIssue): RulebookIssue {
+  const [first, second, third] = issue.path;
+  if (typeof first !== "string" || !(RULEBOOK_TABLE_KEYS as string[]).includes(first)) {
+    if (first === "edition") {
+      return { table: null, rowIndex: null, column: "edition", message: RULEBOOK_MESSAGES.edition(), severity: "error" };
+    }
+    return { table: null, rowIndex: null, column: typeof first === "string" ? first : null, message: issue.message, severity: "error" };
+  }
+  const table = first as RulebookTableKey;
+  if (second === undefined) {
+    return { table, rowIndex: null, column: null, message: RULEBOOK_MESSAGES.missingTable(RULEBOOK_TABLES[table].title), severity: "error" };
+  }
+  const rowIndex = typeof second === "number" ? second : null;
+  const column = typeof third === "string" ? third : null;
+  const row = rowIndex === null ? null : rowIndex + 1;
+  const col = column === null ? undefined : columnOf(table, column);
+  const label = col?.label ?? column ?? "this row";
+  let message: string;
+  if (col?.kind === "enum" && col.options) message = RULEBOOK_MESSAGES.badOption(row ?? 0, label, col.options);
+  else if (col?.kind === "number") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, col.required ? "a number" : "a number or empty");
+  else if (col?.kind === "boolean") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, "yes or no");
+  else if (col?.kind === "text") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, "text");
+  else message = RULEBOOK_MESSAGES.generic(row, issue.message);
+  return { table, rowIndex, column, message, severity: "error" };
+}
+
+function rowKey(row: Record<string, unknown>, cols: readonly string[]): string {
+  let k = "";
+  for (const c of cols) k += `${String(row[c])}\u0000`;
+  return k;
+}
+
+function checkColumns(table: RulebookTableKey, rows: readonly Record<string, unknown>[], out: RulebookIssue[]): void {
+  const def = RULEBOOK_TABLES[table];
+  const cols: readonly ColumnDefinition[] = def.columns;
+  const seen = new Map<string, number>();
+  rows.forEach((r, i) => {
+    const row = i + 1;
+    for (const col of cols) {
+      const v = r[col.key];
+      if (col.key === "citation") {
+        if (typeof v !== "string" || v.trim() === "") {
+          out.push({ table, rowIndex: i, column: "citation", message: RULEBOOK_MESSAGES.missingCitation(row), severity: "error" });
+        }
+        continue;
+      }
+      if (col.kind !== "number" || typeof v !== "number") continue;
+      const isShare = col.min === 0 && col.max === 1;
+      if (isShare && (v < 0 || v > 1)) {
+        out.push({ table, rowIndex: i, column: col.key, message: RULEBOOK_MESSAGES.shareOutOfRange(row, col.label, v), severity: "error" });
+        continue;
+      }
+      if (col.min === 0 && v < 0) {
+        out.push({ table, rowIndex: i, column: col.key, message: RULEBOOK_MESSAGES.negative(row, col.label, v), severity: "error" });
+      } else if (col.min !== undefined && v < col.min) {
+        out.push({ table, rowIndex: i, column: col.key, message: RULEBOOK_MESSAGES.belowMin(row, col.label, v, col.min), severity: "error" });
+      } else if (col.max !== undefined && v > col.max) {
+        out.push({ table, rowIndex: i, column: col.key, message: RULEBOOK_MESSAGES.aboveMax(row, col.label, v, col.max), severity: "error" });
+      }
+      if (col.integer && !Number.isInteger(v)) {
+        out.push({ table, rowIndex: i, column: col.key, message: RULEBOOK_MESSAGES.notWhole(row, col.label, v), severity: "error" });
+      }
+    }
+    const key = rowKey(r, def.uniqueBy);
+    const first = seen.get(key);
+    if (first === undefined) seen.set(key, i);
+    else {
+      const names = def.uniqueBy.map((k) => columnOf(table, k)?.label.toLowerCase() ?? k).join(", ");
+      out.push({ table, rowIndex: i, column: null, message: RULEBOOK_MESSAGES.duplicate(row, first + 1, names), severity: "error" });
+    }
+  });
+}
+
+function checkParameters(content: RulebookContent, out: RulebookIssue[]): void {
+  content.parameters.forEach((p, i) => {
+    const def: ParameterDefinition = PARAMETER_DEFINITIONS[p.key];
+    const row = i + 1;
+    if (p.unit.trim() !== def.unit) {
+      out.push({ table: "parameters", rowIndex: i, column: "unit", message: RULEBOOK_MESSAGES.unitMismatch(row, p.key, p.unit, def.unit), severity: "error" });
+    }
+    if (def.flag && p.value !== 0 && p.value !== 1) {
+      out.push({ table: "parameters", rowIndex: i, column: "value", message: RULEBOOK_MESSAGES.flagNotBinary(row, p.key, p.value), severity: "error" });
+    } else if (def.min === 0 && p.value < 0) {
+      out.push({ table: "parameters", rowIndex: i, column: "value", message: RULEBOOK_MESSAGES.negative(row, p.key, p.value), severity: "error" });
+    } else if (def.max !== undefined && p.value > def.max) {
+      out.push({ table: "parameters", rowIndex: i, column: "value", message: RULEBOOK_MESSAGES.aboveMax(row, p.key, p.value, def.max), severity: "error" });
+    }
+  });
+}
+
+function checkTerminationHeights(content: RulebookContent, out: RulebookIssue[]): void {
+  const rows = content.terminationHeights;
+  const first = rows[0];
+  if (first && first.pitchFromPer12 !== 0) {
+    out.push({ table: "terminationHeights", rowIndex: 0, column: "pitchFromPer12", message: RULEBOOK_MESSAGES.firstPitchNotFlat(first.pitchFromPer12), severity: "warning" });
+  }
+  rows.forEach((r, i) => {
+    if (r.pitchToPer12 <= r.pitchFromPer12) {
+      out.push({ table: "terminationHeights", rowIndex: i, column: "pitchToPer12", message: RULEBOOK_MESSAGES.pitchRange(i + 1, r.pitchFromPer12, r.pitchToPer12), severity: "error" });
+    }
+    const prev = i > 0 ? rows[i - 1] : undefined;
+    if (!prev) return;
+    if (r.pitchFromPer12 < prev.pitchFromPer12) {
+      out.push({ table: "terminationHeights", rowIndex: i, column: "pitchFromPer12", message: RULEBOOK_MESSAGES.pitchOrder(i + 1, i), severity: "error" });
+    } else if (r.pitchFromPer12 !== prev.pitchToPer12) {
+      out.push({ table: "terminationHeights", rowIndex: i, column: "pitchFromPer12", message: RULEBOOK_MESSAGES.pitchGap(i + 1, r.pitchFromPer12, i, prev.pitchToPer12), severity: "error" });
+    }
+    if (r.minHeightFt < prev.minHeightFt) {
+      out.push({ table: "terminationHeights", rowIndex: i, column: "minHeightFt", message: RULEBOOK_MESSAGES.pitchHeightFalls(i + 1, i), severity: "warning" });
+    }
+  });
+}
+
+function checkCapacity(content: RulebookContent, out: RulebookIssue[]): void {
+  const groups = new Map<string, { heights: Set<number>; laterals: Set<number>; cells: Set<string>; sample: (typeof content.capacity)[number] }>();
+  content.capacity.forEach((r, i) => {
+    if (r.fanMinBtuh !== null && r.fanMaxBtuh !== null && r.fanMinBtuh > r.fanMaxBtuh) {
+      out.push({ table: "capacity", rowIndex: i, column: "fanMinBtuh", message: RULEBOOK_MESSAGES.capacityMinAboveMax(i + 1, r.fanMinBtuh, r.fanMaxBtuh), severity: "error" });
+    }
+    if (r.fanMinBtuh === null && r.fanMaxBtuh === null && r.naturalMaxBtuh === null) {
+      out.push({ table: "capacity", rowIndex: i, column: null, message: RULEBOOK_MESSAGES.capacityEmpty(i + 1), severity: "warning" });
+    }
+    const g = `${r.ventMaterial}|${r.connectorMaterial}|${r.diameterIn}`;
+    let grp = groups.get(g);
+    if (!grp) {
+      grp = { heights: new Set(), laterals: new Set(), cells: new Set(), sample: r };
+      groups.set(g, grp);
+    }
+    grp.heights.add(r.heightFt);
+    grp.laterals.add(r.lateralFt);
+    grp.cells.add(`${r.heightFt}|${r.lateralFt}`);
+  });
+  for (const grp of groups.values()) {
+    for (const h of [...grp.heights].sort((a, b) => a - b)) {
+      for (const l of [...grp.laterals].sort((a, b) => a - b)) {
+        if (!grp.cells.has(`${h}|${l}`)) {
+          out.push({
+            table: "capacity",
+            rowIndex: null,
+            column: null,
+            message: RULEBOOK_MESSAGES.capacityGridHole(grp.sample.ventMaterial, grp.sample.connectorMaterial, grp.sample.diameterIn, h, l),
+            severity: "warning",
+          });
+        }
+      }
+    }
+  }
+}
+
+/**
+ * Checks rulebook content and lists every problem with the table, row and column to fix.
+ * Structural problems (a missing table, a word where a number belongs) come from the schema;
+ * the rest are rules about the values: citations present, no negative lengths, shares within 0–1,
+ * no duplicated rows, parameters in their fixed units, roof pitches in order and contiguous,
+ * capacity minimums not above maximums. An empty list means the rulebook can be used.
+ */
+export function validateRulebookContent(content: unknown): RulebookIssue[] {
+  const parsed = rulebookContentSchema.safeParse(content);
+  if (!parsed.success) return parsed.error.issues.map(mapZodIssue);
+  const c = parsed.data;
+  const out: RulebookIssue[] = [];
+  if (c.edition.trim() === "") {
+    out.push({ table: null, rowIndex: null, column: "edition", message: RULEBOOK_MESSAGES.edition(), severity: "error" });
+  }
+  for (const table of RULEBOOK_TABLE_KEYS) {
+    checkColumns(table, c[table] as readonly Record<string, unknown>[], out);
+  }
+  checkParameters(c, out);
+  checkTerminationHeights(c, out);
+  checkCapacity(c, out);
+  return out;
+}
