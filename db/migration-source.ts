@@ -1,0 +1,23 @@
+import type { Knex } from "knex";
+import * as foundation from "./migrations/20261201000001_foundation";
+import * as rulebooks from "./migrations/20261201000002_rulebooks";
+
+/**
+ * The migrations as a static list, for runtimes that cannot load .ts files from a folder
+ * (plain Vitest). The names match the files, so both sources record the same history.
+ * Add each new migration here too (DEVELOPERS.md says so; a unit test checks the folder).
+ */
+export const MIGRATIONS: Record<string, { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> }> = {
+  "20261201000001_foundation.ts": foundation,
+  "20261201000002_rulebooks.ts": rulebooks,
+};
+
+export const staticMigrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(MIGRATIONS).sort(),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => {
+    const migration = MIGRATIONS[name];
+    if (!migration) throw new Error(`Unknown migration ${name}`);
+    return migration;
+  },
+};

@@ -1,0 +1,42 @@
+import fs from "node:fs";
+import { defineConfig, devices } from "@playwright/test";
+
+/**
+ * End-to-end tests against a production build (built by scripts/test.sh), on a fresh database
+ * under test-results/. Uses Debian's Chromium where present; elsewhere Playwright's own browser.
+ */
+const PORT = Number(process.env.E2E_PORT ?? 3100);
+const systemChromium = ["/usr/bin/chromium", "/usr/bin/chromium-browser"].find((p) => fs.existsSync(p));
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  testMatch: "**/*.spec.ts",
+  timeout: 45_000,
+  expect: { timeout: 10_000 },
+  fullyParallel: false,
+  workers: 2,
+  retries: process.env.CI ? 1 : 0,
+  reporter: [["list"], ["json", { outputFile: "test-results/e2e-report.json" }]],
+  use: {
+    baseURL: `http://localhost:${PORT}`,
+    trace: "retain-on-failure",
+    screenshot: "only-on-failure",
+    launchOptions: {
+      executablePath: systemChromium,
+      args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],
+    },
+  },
+  projects: [
+    { name: "desktop", use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 } }, testIgnore: /phone\.spec\.ts$/ },
+    { name: "phone", use: { ...devices["Desktop Chrome"], viewport: { width: 375, height: 812 }, isMobile: false, hasTouch: true }, testMatch: /phone\.spec\.ts$/ },
+  ],
+  webServer: {
+    command: "bash scripts/e2e-server.sh",
+    url: `http://localhost:${PORT}/api/health`,
+    reuseExistingServer: false,
+    timeout: 120_000,
+    env: { E2E_PORT: String(PORT) },
+    stdout: "ignore",
+    stderr: "pipe",
+  },
+});

@@ -1,0 +1,31 @@
+#!/usr/bin/env bash
+# The one test command (npm test): unit tests, a production build, end-to-end tests, and a
+# closing line "N passed, N failed" counted from both runners' JSON reports.
+set -uo pipefail
+cd "$(dirname "$0")/.."
+export NEXT_TELEMETRY_DISABLED=1
+
+bash scripts/ensure-deps.sh --test || exit 1
+rm -rf test-results && mkdir -p test-results
+
+echo "== unit tests (vitest)"
+npx vitest run --reporter=default --reporter=json --outputFile=test-results/unit-report.json
+unit_status=$?
+
+echo "== production build"
+build_status=0
+rm -rf .next
+npx next build > test-results/build.log 2>&1 || { build_status=$?; tail -40 test-results/build.log; }
+
+e2e_status=0
+if [[ $build_status -eq 0 ]]; then
+  echo "== end-to-end tests (playwright)"
+  npx playwright test
+  e2e_status=$?
+fi
+
+node scripts/test-summary.mjs test-results/unit-report.json test-results/e2e-report.json "$build_status"
+summary_status=$?
+
+if [[ $unit_status -ne 0 || $build_status -ne 0 || $e2e_status -ne 0 || $summary_status -ne 0 ]]; then exit 1; fi
+exit 0

@@ -1,0 +1,73 @@
+import { expect, test } from "@playwright/test";
+import { SignInPage } from "./pages/sign-in-page";
+import { apiAs, apiSignIn } from "./support/api";
+
+test.describe("members (admin)", () => {
+  test("add a member with a temporary password; they must choose their own at first sign-in", async ({ page, browser, baseURL }) => {
+    await new SignInPage(page).signInAs("admin");
+    await page.goto("/members");
+    await page.getByLabel("Name").fill("Perpetua Nye");
+    await page.getByLabel("E-mail").fill("perpetua.nye@flueward.test");
+    await page.getByLabel("Role", { exact: true }).selectOption("installer");
+    await page.getByRole("button", { name: "Add member" }).click();
+    const temporary = (await page.getByTestId("temporary-password").textContent())!.trim();
+    expect(temporary).toMatch(/^[a-z2-9]{4}(-[a-z2-9]{4}){4}$/);
+    await expect(page.getByTestId("member-perpetua.nye@flueward.test")).toBeVisible();
+
+    const newcomer = await browser.newPage({ baseURL });
+    const signIn = new SignInPage(newcomer);
+    await signIn.goto();
+    await signIn.signIn("perpetua.nye@flueward.test", temporary);
+    await newcomer.waitForURL(/\/account/);
+    await expect(newcomer.getByText("You signed in with a temporary password")).toBeVisible();
+    await newcomer.goto("/jobs");
+    await expect(newcomer).toHaveURL(/\/account/);
+    await newcomer.getByLabel("Current password").fill(temporary);
+    await newcomer.getByLabel("New password", { exact: true }).fill("password1234");
+    await newcomer.getByLabel("Repeat new password").fill("password1234");
+    await newcomer.getByRole("button", { name: "Change password" }).click();
+    await expect(newcomer.locator("#pw-newPassword-error")).toContainText("commonly used");
+    await newcomer.getByLabel("New password", { exact: true }).fill("saltmarsh kettle orbit");
+    await newcomer.getByLabel("Repeat new password").fill("saltmarsh kettle orbit");
+    await newcomer.getByRole("button", { name: "Change password" }).click();
+    await newcomer.waitForURL(/\/jobs/);
+    await newcomer.close();
+  });
+
+  test("deactivating a member ends their live session at once", async ({ baseURL }) => {
+    const admin = await apiAs(baseURL!, "admin");
+    const created = await admin.post("/api/members", { data: { name: "Lucan Ferrow", email: "lucan.ferrow@flueward.test", role: "supervisor" } });
+    expect(created.status()).toBe(201);
+    const { member, temporaryPassword } = await created.json();
+    const lucan = await apiSignIn(baseURL!, "lucan.ferrow@flueward.test", temporaryPassword);
+    expect((await lucan.get("/api/me")).status()).toBe(200);
+
+    const deactivate = await admin.patch(`/api/members/${member.id}`, { data: { active: false } });
+    expect(deactivate.status()).toBe(200);
+    expect((await deactivate.json()).member.active).toBe(false);
+    expect((await lucan.get("/api/me")).status()).toBe(401);
+    expect((await lucan.get("/api/jobs")).status()).toBe(401);
+  });
+
+  test("a role change applies to the member's next request", async ({ baseURL }) => {
+    const admin = await apiAs(baseURL!, "admin");
+    const { member, temporaryPassword } = await (await admin.post("/api/members", { data: { name: "Sabine Corrow", email: "sabine.corrow@flueward.test", role: "installer" } })).json();
+    const sabine = await apiSignIn(baseURL!, "sabine.corrow@flueward.test", temporaryPassword);
+    expect((await sabine.get("/api/members")).status()).toBe(403);
+    await admin.patch(`/api/members/${member.id}`, { data: { role: "admin" } });
+    expect((await sabine.get("/api/members")).status()).toBe(200);
+  });
+
+  test("an admin cannot deactivate themself, and bad member input gets field errors", async ({ baseURL }) => {
+    const admin = await apiAs(baseURL!, "admin");
+    const me = (await (await admin.get("/api/me")).json()).member;
+    const self = await admin.patch(`/api/members/${me.id}`, { data: { active: false } });
+    expect(self.status()).toBe(422);
+    const bad = await admin.post("/api/members", { data: { name: "", email: "nope", role: "owner" } });
+    expect(bad.status()).toBe(400);
+    expect(Object.keys((await bad.json()).error.fields).sort()).toEqual(["email", "name", "role"]);
+    const duplicate = await admin.post("/api/members", { data: { name: "Dup", email: "installer@flueward.test", role: "installer" } });
+    expect(duplicate.status()).toBe(400);
+    expect((await duplicate.json()).error.fields.email).toContain("already exists");
+  });
+});
