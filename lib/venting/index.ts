@@ -87,7 +87,7 @@ export type {
   ParameterRow,
   TerminationHeightRow,
 } from "./rulebook/tables";
-export { validateRulebookContent, RULEBOOK_MESSAGES } from "./rulebook/validate";
+export { validateRulebookContent, validateRulebookTable, RULEBOOK_MESSAGES } from "./rulebook/validate";
 export type { RulebookIssue } from "./rulebook/validate";
 export { prepareRulebook, RulebookInvalidError } from "./rulebook/prepare";
 export type { PreparedRulebook, RuleRef, Cited, CapacityGrid } from "./rulebook/prepare";

@@ -146,8 +146,8 @@ function checkColumns(table: RulebookTableKey, rows: readonly Record<string, unk
   });
 }
 
-function checkParameters(content: RulebookContent, out: RulebookIssue[]): void {
-  content.parameters.forEach((p, i) => {
+function checkParameters(rows: RulebookContent["parameters"], out: RulebookIssue[]): void {
+  rows.forEach((p, i) => {
     const def: ParameterDefinition = PARAMETER_DEFINITIONS[p.key];
     const row = i + 1;
     if (p.unit.trim() !== def.unit) {
@@ -163,8 +163,7 @@ function checkParameters(content: RulebookContent, out: RulebookIssue[]): void {
   });
 }
 
-function checkTerminationHeights(content: RulebookContent, out: RulebookIssue[]): void {
-  const rows = content.terminationHeights;
+function checkTerminationHeights(rows: RulebookContent["terminationHeights"], out: RulebookIssue[]): void {
   const first = rows[0];
   if (first && first.pitchFromPer12 !== 0) {
     out.push({ table: "terminationHeights", rowIndex: 0, column: "pitchFromPer12", message: RULEBOOK_MESSAGES.firstPitchNotFlat(first.pitchFromPer12), severity: "warning" });
@@ -186,9 +185,9 @@ function checkTerminationHeights(content: RulebookContent, out: RulebookIssue[])
   });
 }
 
-function checkCapacity(content: RulebookContent, out: RulebookIssue[]): void {
-  const groups = new Map<string, { heights: Set<number>; laterals: Set<number>; cells: Set<string>; sample: (typeof content.capacity)[number] }>();
-  content.capacity.forEach((r, i) => {
+function checkCapacity(rows: RulebookContent["capacity"], out: RulebookIssue[]): void {
+  const groups = new Map<string, { heights: Set<number>; laterals: Set<number>; cells: Set<string>; sample: RulebookContent["capacity"][number] }>();
+  rows.forEach((r, i) => {
     if (r.fanMinBtuh !== null && r.fanMaxBtuh !== null && r.fanMinBtuh > r.fanMaxBtuh) {
       out.push({ table: "capacity", rowIndex: i, column: "fanMinBtuh", message: RULEBOOK_MESSAGES.capacityMinAboveMax(i + 1, r.fanMinBtuh, r.fanMaxBtuh), severity: "error" });
     }
@@ -237,11 +236,25 @@ export function validateRulebookContent(content: unknown): RulebookIssue[] {
   if (c.edition.trim() === "") {
     out.push({ table: null, rowIndex: null, column: "edition", message: RULEBOOK_MESSAGES.edition(), severity: "error" });
   }
-  for (const table of RULEBOOK_TABLE_KEYS) {
-    checkColumns(table, c[table] as readonly Record<string, unknown>[], out);
-  }
-  checkParameters(c, out);
-  checkTerminationHeights(c, out);
-  checkCapacity(c, out);
+  for (const table of RULEBOOK_TABLE_KEYS) out.push(...validateParsedTable(table, c[table]));
   return out;
+}
+
+function validateParsedTable<K extends RulebookTableKey>(table: K, rows: RulebookContent[K]): RulebookIssue[] {
+  const out: RulebookIssue[] = [];
+  checkColumns(table, rows as readonly Record<string, unknown>[], out);
+  if (table === "parameters") checkParameters(rows as RulebookContent["parameters"], out);
+  else if (table === "terminationHeights") checkTerminationHeights(rows as RulebookContent["terminationHeights"], out);
+  else if (table === "capacity") checkCapacity(rows as RulebookContent["capacity"], out);
+  return out;
+}
+
+/**
+ * Checks the rows of one table (for an editor grid or a CSV import) with the same rules as
+ * {@link validateRulebookContent}.
+ */
+export function validateRulebookTable<K extends RulebookTableKey>(table: K, rows: unknown): RulebookIssue[] {
+  const parsed = rulebookContentSchema.shape[table].safeParse(rows);
+  if (!parsed.success) return parsed.error.issues.map((i) => mapZodIssue({ ...i, path: [table, ...i.path] }));
+  return validateParsedTable(table, parsed.data as RulebookContent[K]);
 }
