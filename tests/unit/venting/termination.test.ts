@@ -1,0 +1,102 @@
+import { describe, expect, test } from "vitest";
+import { evaluateVentRun, terminationHeightRow, ventRunSchema } from "@/lib/venting";
+import { RB, furnace, goodRun, only, withCode } from "@/tests/fixtures/venting/rulebook";
+
+function withTermination(t: Record<string, unknown>, appliance = furnace()) {
+  const run = ventRunSchema.parse({ ...goodRun(), termination: { listedCap: true, capSizeIn: 4, distanceToVerticalWallFt: 10, ...t } });
+  return evaluateVentRun(run, [appliance], RB).findings;
+}
+
+describe("termination.height", () => {
+  // IFGC Table 503.6.4; IRC G2427.6.3 (REFERENCE.md B1, found).
+  test.each([
+    { pitch: 0, minFt: 1.0 },
+    { pitch: 6, minFt: 1.0 }, // top of the first row (boundary)
+    { pitch: 6.01, minFt: 1.25 },
+    { pitch: 7, minFt: 1.25 },
+    { pitch: 8, minFt: 1.5 },
+    { pitch: 12, minFt: 4.0 },
+    { pitch: 21, minFt: 8.0 },
+  ])("$pitch/12 roof needs $minFt ft", ({ pitch, minFt }) => {
+    expect(terminationHeightRow(RB, pitch)?.row.minHeightFt).toBe(minFt);
+    expect(only(withTermination({ roofPitchPer12: pitch, heightAboveRoofFt: minFt }), "termination.height").status).toBe("pass");
+    expect(only(withTermination({ roofPitchPer12: pitch, heightAboveRoofFt: minFt - 0.01 }), "termination.height").status).toBe("fail");
+  });
+
+  test("steeper than the table is needs-info", () => {
+    const f = only(withTermination({ roofPitchPer12: 22, heightAboveRoofFt: 10 }), "termination.height");
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toContain("steeper");
+  });
+
+  // IFGC 503.6.4 (REFERENCE.md B2, found): caps over 12 in or closer than 8 ft to a wall: 2 ft, and 2 ft above anything within 10 ft.
+  test.each([
+    { capSizeIn: 14, distanceToVerticalWallFt: 10, heightAboveRoofFt: 2, nearby: 2, status: "pass" },
+    { capSizeIn: 12, distanceToVerticalWallFt: 7.9, heightAboveRoofFt: 1.9, nearby: 3, status: "fail" },
+    { capSizeIn: 12, distanceToVerticalWallFt: 8, heightAboveRoofFt: 1.0, nearby: 0, status: "pass" }, // exactly 8 ft, 12 in cap → pitch table
+  ])("cap $capSizeIn in, wall $distanceToVerticalWallFt ft, $heightAboveRoofFt ft → $status", ({ nearby, status, ...t }) => {
+    const f = withCode(withTermination({ ...t, roofPitchPer12: 4, heightAboveNearbyStructureFt: nearby }), "termination.height")[0]!;
+    expect(f.status).toBe(status);
+  });
+
+  test("outside the pitch table the height above nearby structures is required", () => {
+    const list = withCode(withTermination({ capSizeIn: 14, heightAboveRoofFt: 3, roofPitchPer12: 4 }), "termination.height");
+    expect(list.map((f) => f.status)).toEqual(["pass", "needs-info"]);
+    const list2 = withCode(withTermination({ capSizeIn: 14, heightAboveRoofFt: 3, roofPitchPer12: 4, heightAboveNearbyStructureFt: 1 }), "termination.height");
+    expect(list2.map((f) => f.status)).toEqual(["pass", "fail"]);
+  });
+
+  test("missing height is needs-info", () => {
+    expect(only(withTermination({ roofPitchPer12: 6 }), "termination.height").status).toBe("needs-info");
+  });
+});
+
+describe("termination.distance", () => {
+  // IFGC 503.8; IRC G2427.8 (REFERENCE.md B5, found): mechanical draft: 4 ft below/beside or 1 ft above a door,
+  // window or gravity inlet; 3 ft above a forced-air inlet within 10 ft.
+  const catIV = furnace({ category: "IV", draft: "fan_assisted" });
+  test.each([
+    { kind: "door", distanceFt: 4, ventAboveFt: 0, status: "pass" },
+    { kind: "door", distanceFt: 3.9, ventAboveFt: 1, status: "pass" },
+    { kind: "operable_window", distanceFt: 3.9, ventAboveFt: 0.9, status: "fail" },
+    { kind: "mechanical_inlet", distanceFt: 10, ventAboveFt: 0, status: "pass" },
+    { kind: "mechanical_inlet", distanceFt: 6, ventAboveFt: 3, status: "pass" },
+    { kind: "mechanical_inlet", distanceFt: 6, ventAboveFt: 2, status: "fail" },
+    { kind: "gravity_inlet", distanceFt: 2, ventAboveFt: null, status: "needs-info" },
+  ])("$kind at $distanceFt ft, vent $ventAboveFt ft above → $status", ({ status, ...o }) => {
+    const f = only(withTermination({ heightAboveRoofFt: 2, roofPitchPer12: 4, nearbyOpenings: [{ id: "o1", ...o }] }, catIV), "termination.distance");
+    expect(f.status).toBe(status);
+    expect(f.target.itemId).toBe("o1");
+  });
+
+  test("rows for mechanical draft do not apply to a natural-draft vent", () => {
+    const findings = withTermination({ heightAboveRoofFt: 2, roofPitchPer12: 4, nearbyOpenings: [{ id: "o1", kind: "door", distanceFt: 1 }] });
+    expect(withCode(findings, "termination.distance")).toHaveLength(0);
+  });
+});
+
+describe("vent.min_height and vent.category", () => {
+  // IFGC 503.6.5; IRC G2427.6.4 (REFERENCE.md B3, found): ≥ 5 ft above the highest collar.
+  test.each([
+    { heightFt: 5, status: "pass" },
+    { heightFt: 4.99, status: "fail" },
+    { heightFt: null, status: "needs-info" },
+  ])("vent $heightFt ft → $status", ({ heightFt, status }) => {
+    const run = ventRunSchema.parse({ ...goodRun(), vent: { ...goodRun().vent, heightFt } });
+    expect(only(evaluateVentRun(run, [furnace()], RB).findings, "vent.min_height").status).toBe(status);
+  });
+
+  test("a Category IV appliance skips the Category I checks with a caution", () => {
+    const findings = evaluateVentRun(goodRun(), [furnace({ category: "IV" })], RB).findings;
+    expect(only(findings, "vent.category").status).toBe("warn");
+    expect(withCode(findings, "vent.capacity")).toHaveLength(0);
+    expect(withCode(findings, "connector.slope")).toHaveLength(0);
+    expect(withCode(findings, "clearance.combustibles").length).toBeGreaterThan(0);
+  });
+
+  test("unknown category and draft is needs-info but the checks still run", () => {
+    const findings = evaluateVentRun(goodRun(), [furnace({ category: null, draft: null })], RB).findings;
+    expect(only(findings, "vent.category").status).toBe("needs-info");
+    expect(withCode(findings, "connector.slope")).toHaveLength(1);
+  });
+});
