@@ -256,7 +256,12 @@ export function evaluateInspection(input: CheckInput, rulebook: PreparedRulebook
   if (input.ventRun) {
     if (removedIds.length > 0) {
       const run = input.ventRun;
-      const current = { ...run, vent: { ...run.vent, serves: "single" as const } };
+      const current: VentRun = {
+        ...run,
+        applianceIds: run.applianceIds ? run.applianceIds.filter((id) => !removedIds.includes(id)) : run.applianceIds,
+        segments: run.segments.filter((s) => !s.applianceId || !removedIds.includes(s.applianceId)),
+        vent: { ...run.vent, serves: "single" },
+      };
       const r = evaluateVentRun(current, appliances.filter((a) => !removedIds.includes(a.id)), rulebook);
       // The orphan finding replaces the plain capacity finding: it is the same table, read for the one left behind.
       for (const f of r.findings) if (f.code !== "vent.capacity") findings.push(f);
