@@ -12,6 +12,9 @@ export async function up(knex: Knex): Promise<void> {
     t.string("phone", 50).notNullable().defaultTo("");
     t.string("email", 254).notNullable().defaultTo("");
     t.string("address", 500).notNullable().defaultTo("");
+    // The rulebook new inspections are checked against. No foreign key: rulebooks come in a
+    // later migration, and the data layer only ever sets it to a rulebook of the same company.
+    t.integer("default_rulebook_id").nullable();
     t.string("created_at", 40).notNullable();
     t.string("updated_at", 40).notNullable();
   });

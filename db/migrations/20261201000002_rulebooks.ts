@@ -31,17 +31,10 @@ export async function up(knex: Knex): Promise<void> {
     t.unique(["rulebook_id", "version_number"]);
     t.index(["company_id", "rulebook_id"]);
   });
-
-  await knex.schema.alterTable("companies", (t) => {
-    t.integer("default_rulebook_id").nullable().references("id").inTable("rulebooks").onDelete("SET NULL");
-  });
 }
 
 export async function down(knex: Knex): Promise<void> {
-  await knex.schema.alterTable("companies", (t) => {
-    t.dropForeign(["default_rulebook_id"]);
-    t.dropColumn("default_rulebook_id");
-  });
+  await knex("companies").update({ default_rulebook_id: null });
   await knex.schema.dropTableIfExists("rulebook_versions");
   await knex.schema.dropTableIfExists("rulebooks");
 }

@@ -1,0 +1,325 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useMemo, useRef, useState } from "react";
+import { apiFetch, ApiError } from "@/lib/client/api";
+import {
+  PARAMETER_DEFINITIONS,
+  RULEBOOK_TABLES,
+  RULEBOOK_TABLE_KEYS,
+  validateRulebookTable,
+  type ColumnDefinition,
+  type RulebookContent,
+  type RulebookIssue,
+  type RulebookTableKey,
+} from "@/lib/venting";
+import { csvFileName, parseTableCsv, type CsvRowError } from "@/lib/rulebooks/csv";
+
+type Row = Record<string, unknown>;
+type Tables = Record<RulebookTableKey, Row[]>;
+
+function cellValue(column: ColumnDefinition, raw: string): unknown {
+  if (column.kind === "number") {
+    if (raw.trim() === "") return null;
+    const n = Number(raw.replace(",", "."));
+    return Number.isFinite(n) ? n : raw;
+  }
+  return raw;
+}
+
+function emptyRow(table: RulebookTableKey): Row {
+  const row: Row = {};
+  for (const column of RULEBOOK_TABLES[table].columns) {
+    row[column.key] = column.kind === "boolean" ? false : column.kind === "number" ? null : column.kind === "enum" ? (column.options?.[0] ?? "") : "";
+  }
+  return row;
+}
+
+/**
+ * The rulebook as editable grids, one table at a time, with live validation, CSV import and
+ * export, and saving as the next version.
+ */
+export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: { rulebookId: number; versionNumber: number; content: RulebookContent; canEdit: boolean }) {
+  const router = useRouter();
+  const [tables, setTables] = useState<Tables>(() => {
+    const t = {} as Tables;
+    for (const key of RULEBOOK_TABLE_KEYS) t[key] = (content[key] as Row[]).map((r) => ({ ...r }));
+    return t;
+  });
+  const [active, setActive] = useState<RulebookTableKey>("parameters");
+  const [dirty, setDirty] = useState(false);
+  const [changeNote, setChangeNote] = useState("");
+  const [saveState, setSaveState] = useState<{ kind: "idle" | "saving" | "error" | "saved"; message?: string; fields?: Record<string, string> }>({ kind: "idle" });
+  const [csvErrors, setCsvErrors] = useState<readonly CsvRowError[] | null>(null);
+  const fileInput = useRef<HTMLInputElement>(null);
+
+  const definition = RULEBOOK_TABLES[active] as { title: string; description: string; columns: readonly ColumnDefinition[] };
+  const rows = tables[active];
+  const issues = useMemo(() => validateRulebookTable(active, rows), [active, rows]);
+  const issuesByRow = useMemo(() => {
+    const map = new Map<number | null, RulebookIssue[]>();
+    for (const issue of issues) map.set(issue.rowIndex, [...(map.get(issue.rowIndex) ?? []), issue]);
+    return map;
+  }, [issues]);
+  const errorCounts = useMemo(() => {
+    const counts = {} as Record<RulebookTableKey, number>;
+    for (const key of RULEBOOK_TABLE_KEYS) counts[key] = validateRulebookTable(key, tables[key]).filter((i) => i.severity === "error").length;
+    return counts;
+  }, [tables]);
+  const totalErrors = Object.values(errorCounts).reduce((a, b) => a + b, 0);
+
+  const update = (next: Row[]) => {
+    setTables((t) => ({ ...t, [active]: next }));
+    setDirty(true);
+    setSaveState({ kind: "idle" });
+  };
+  const setCell = (rowIndex: number, column: ColumnDefinition, value: unknown) => update(rows.map((r, i) => (i === rowIndex ? { ...r, [column.key]: value } : r)));
+  const move = (from: number, to: number) => {
+    if (to < 0 || to >= rows.length) return;
+    const next = [...rows];
+    const [item] = next.splice(from, 1);
+    next.splice(to, 0, item!);
+    update(next);
+  };
+
+  const importCsv = async (file: File) => {
+    setCsvErrors(null);
+    const text = await file.text();
+    const result = parseTableCsv(active, text);
+    if (!result.ok) {
+      setCsvErrors(result.errors);
+      return;
+    }
+    update(result.rows as Row[]);
+    setCsvErrors(result.warnings.length ? result.warnings : []);
+  };
+
+  const save = async () => {
+    setSaveState({ kind: "saving" });
+    try {
+      const body = { baseVersionNumber: versionNumber, changeNote, content: { edition: content.edition, demoDataNote: content.demoDataNote, ...tables } };
+      const result = await apiFetch<{ version: { versionNumber: number } }>(`/api/rulebooks/${rulebookId}/versions`, { method: "POST", body });
+      setDirty(false);
+      setChangeNote("");
+      setSaveState({ kind: "saved", message: `Saved as version ${result.version.versionNumber}.` });
+      router.push(`/rulebooks/${rulebookId}?version=${result.version.versionNumber}`);
+      router.refresh();
+    } catch (error) {
+      if (error instanceof ApiError) setSaveState({ kind: "error", message: error.message, fields: error.fields });
+      else setSaveState({ kind: "error", message: "The rulebook could not be saved. Try again." });
+    }
+  };
+
+  return (
+    <div className="min-w-0 space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <div className="min-w-[14rem] flex-1">
+          <label htmlFor="rulebook-table" className="label">
+            Table
+          </label>
+          <select id="rulebook-table" className="input" value={active} onChange={(e) => { setActive(e.target.value as RulebookTableKey); setCsvErrors(null); }}>
+            {RULEBOOK_TABLE_KEYS.map((key) => (
+              <option key={key} value={key}>
+                {RULEBOOK_TABLES[key].title} ({tables[key].length} rows{errorCounts[key] ? `, ${errorCounts[key]} to fix` : ""})
+              </option>
+            ))}
+          </select>
+        </div>
+        <a className="btn-secondary" href={`/api/rulebooks/${rulebookId}/versions/${versionNumber}/csv/${active}`} download={`v${versionNumber}-${csvFileName(active)}`}>
+          Export CSV
+        </a>
+        {canEdit ? (
+          <>
+            <button type="button" className="btn-secondary" onClick={() => fileInput.current?.click()}>
+              Import CSV
+            </button>
+            <input
+              ref={fileInput}
+              type="file"
+              accept=".csv,text/csv"
+              className="sr-only"
+              aria-label="CSV file to import into this table"
+              onChange={(e) => {
+                const file = e.target.files?.[0];
+                if (file) void importCsv(file);
+                e.target.value = "";
+              }}
+            />
+          </>
+        ) : null}
+      </div>
+      <p className="text-sm text-ink-600">{definition.description}</p>
+
+      {csvErrors ? (
+        csvErrors.length === 0 ? (
+          <p role="status" className="rounded-md bg-pass-soft px-3 py-2 text-sm text-pass">CSV imported into the table below. Review it, then save a new version.</p>
+        ) : (
+          <div role="alert" className="rounded-md border border-fail/30 bg-fail-soft px-3 py-2 text-sm">
+            <p className="font-semibold text-fail">The CSV file was not imported. Fix these lines and import it again:</p>
+            <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-800" data-testid="csv-errors">
+              {csvErrors.map((e, i) => (
+                <li key={i}>
+                  Line {e.line}
+                  {e.column ? `, column ${e.column}` : ""}: {e.message}
+                </li>
+              ))}
+            </ul>
+          </div>
+        )
+      ) : null}
+
+      {issuesByRow.get(null)?.map((issue, i) => (
+        <p key={i} className={`text-sm ${issue.severity === "error" ? "text-fail" : "text-warn"}`}>
+          {issue.message}
+        </p>
+      ))}
+
+      <div className="card overflow-x-auto">
+        <table className="w-full min-w-[40rem] text-left text-sm">
+          <thead className="border-b border-ink-200 bg-ink-50 text-xs uppercase tracking-wide text-ink-500">
+            <tr>
+              <th className="w-10 px-2 py-2">#</th>
+              {definition.columns.map((c) => (
+                <th key={c.key} className="px-2 py-2">
+                  {c.label}
+                  {c.unit ? <span className="block normal-case text-ink-400">{c.unit}</span> : null}
+                </th>
+              ))}
+              {canEdit ? <th className="px-2 py-2"><span className="sr-only">Row actions</span></th> : null}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((row, rowIndex) => {
+              const rowIssues = issuesByRow.get(rowIndex) ?? [];
+              return (
+                <tr key={rowIndex} className={`border-b border-ink-100 align-top last:border-0 ${rowIssues.some((i) => i.severity === "error") ? "bg-fail-soft/40" : ""}`}>
+                  <td className="px-2 py-2 text-xs text-ink-400">{rowIndex + 1}</td>
+                  {definition.columns.map((column) => {
+                    const cellIssue = rowIssues.find((i) => i.column === column.key);
+                    const id = `cell-${active}-${rowIndex}-${column.key}`;
+                    const value = row[column.key];
+                    const label = `${column.label}, row ${rowIndex + 1}`;
+                    let control;
+                    if (!canEdit) {
+                      control = <span className={column.key === "citation" ? "text-xs text-ink-600" : ""}>{column.kind === "boolean" ? (value ? "Yes" : "No") : String(value ?? "—")}</span>;
+                    } else if (column.kind === "boolean") {
+                      control = <input id={id} type="checkbox" aria-label={label} className="h-5 w-5 accent-copper-600" checked={Boolean(value)} onChange={(e) => setCell(rowIndex, column, e.target.checked)} />;
+                    } else if (column.kind === "enum") {
+                      control = (
+                        <select id={id} aria-label={label} className="input py-1 text-sm" value={String(value ?? "")} onChange={(e) => setCell(rowIndex, column, e.target.value)}>
+                          {(column.options ?? []).map((o) => (
+                            <option key={o} value={o}>
+                              {active === "parameters" && column.key === "key" ? `${o}` : o}
+                            </option>
+                          ))}
+                        </select>
+                      );
+                    } else {
+                      control = (
+                        <input
+                          id={id}
+                          aria-label={label}
+                          aria-invalid={cellIssue ? true : undefined}
+                          className={`input py-1 text-sm ${column.key === "citation" ? "min-w-[16rem]" : "min-w-[6rem]"}`}
+                          inputMode={column.kind === "number" ? "decimal" : undefined}
+                          value={value === null || value === undefined ? "" : String(value)}
+                          onChange={(e) => setCell(rowIndex, column, cellValue(column, e.target.value))}
+                        />
+                      );
+                    }
+                    return (
+                      <td key={column.key} className="px-2 py-2">
+                        {control}
+                        {active === "parameters" && column.key === "key" ? (
+                          <span className="mt-1 block text-xs text-ink-500">{PARAMETER_DEFINITIONS[String(value) as keyof typeof PARAMETER_DEFINITIONS]?.description ?? ""}</span>
+                        ) : null}
+                        {cellIssue ? <span className={`mt-1 block text-xs font-medium ${cellIssue.severity === "error" ? "text-fail" : "text-warn"}`}>{cellIssue.message}</span> : null}
+                      </td>
+                    );
+                  })}
+                  {canEdit ? (
+                    <td className="whitespace-nowrap px-2 py-2">
+                      <button type="button" className="btn-ghost min-h-0 px-2 py-1" aria-label={`Move row ${rowIndex + 1} up`} onClick={() => move(rowIndex, rowIndex - 1)}>
+                        ↑
+                      </button>
+                      <button type="button" className="btn-ghost min-h-0 px-2 py-1" aria-label={`Move row ${rowIndex + 1} down`} onClick={() => move(rowIndex, rowIndex + 1)}>
+                        ↓
+                      </button>
+                      <button type="button" className="btn-ghost min-h-0 px-2 py-1 text-fail" aria-label={`Remove row ${rowIndex + 1}`} onClick={() => update(rows.filter((_, i) => i !== rowIndex))}>
+                        Remove
+                      </button>
+                    </td>
+                  ) : null}
+                </tr>
+              );
+            })}
+            {rows.length > 0
+              ? null
+              : (
+                <tr>
+                  <td colSpan={definition.columns.length + 2} className="px-3 py-6 text-center text-ink-500">
+                    This table is empty.
+                  </td>
+                </tr>
+              )}
+            {[...issuesByRow.entries()]
+              .filter(([rowIndex, list]) => rowIndex !== null && list.some((i) => i.column === null))
+              .map(([rowIndex, list]) => (
+                <tr key={`row-issue-${rowIndex}`}>
+                  <td colSpan={definition.columns.length + 2} className="px-2 py-1 text-xs text-fail">
+                    {list.filter((i) => i.column === null).map((i) => i.message).join(" ")}
+                  </td>
+                </tr>
+              ))}
+          </tbody>
+        </table>
+      </div>
+
+      {canEdit ? (
+        <div className="space-y-3">
+          <button type="button" className="btn-secondary" onClick={() => update([...rows, emptyRow(active)])}>
+            Add row
+          </button>
+          <div className="card space-y-3 p-4">
+            <label htmlFor="change-note" className="label">
+              What changed, and why
+            </label>
+            <input
+              id="change-note"
+              className="input"
+              maxLength={500}
+              placeholder="e.g. Single-wall clearance per our adopted edition, section 503.10.5"
+              value={changeNote}
+              onChange={(e) => setChangeNote(e.target.value)}
+            />
+            <div aria-live="polite" className="space-y-1 text-sm">
+              {totalErrors > 0 ? (
+                <p className="text-fail">
+                  {totalErrors} problem{totalErrors === 1 ? "" : "s"} to fix before saving (
+                  {RULEBOOK_TABLE_KEYS.filter((k) => errorCounts[k]).map((k) => RULEBOOK_TABLES[k].title).join(", ")}).
+                </p>
+              ) : null}
+              {saveState.kind === "error" ? (
+                <div role="alert" className="rounded-md bg-fail-soft px-3 py-2 text-fail">
+                  <p className="font-semibold">{saveState.message}</p>
+                  {saveState.fields ? (
+                    <ul className="mt-1 list-disc pl-5 text-ink-800">
+                      {Object.entries(saveState.fields).slice(0, 10).map(([k, m]) => (
+                        <li key={k}>{m}</li>
+                      ))}
+                    </ul>
+                  ) : null}
+                </div>
+              ) : null}
+              {saveState.kind === "saved" ? <p className="text-pass">{saveState.message}</p> : null}
+            </div>
+            <button type="button" className="btn-primary" disabled={!dirty || totalErrors > 0 || saveState.kind === "saving" || changeNote.trim() === ""} onClick={save}>
+              {saveState.kind === "saving" ? "Saving…" : `Save as version ${versionNumber + 1}`}
+            </button>
+            {dirty ? <p className="text-xs text-ink-500">Unsaved changes. Saving creates a new version; this version stays as it is.</p> : null}
+          </div>
+        </div>
+      ) : null}
+    </div>
+  );
+}
