@@ -95,3 +95,23 @@ describe("evaluateInspection", () => {
     }
   });
 });
+
+describe("docs/engine.md worked example", () => {
+  test("the documented findings are exactly what the engine returns for the example request", async () => {
+    const { STARTER_RULEBOOK } = await import("@/db/seeds/data/starter-rulebook");
+    const { prepareRulebook } = await import("@/lib/venting");
+    const doc = readFileSync("docs/engine.md", "utf8");
+    const block = doc.split("<!-- example-findings:start -->")[1]!.split("<!-- example-findings:end -->")[0]!;
+    const documented = block
+      .split("\n")
+      .filter((l) => l.startsWith("| ") && l.includes("`") && !l.startsWith("| ---"))
+      .map((l) => {
+        const [status, code, path, message] = l.slice(2, -2).split(" | ").map((c) => c.replace(/`/g, ""));
+        return { status, code, path, message };
+      });
+    const input = checkInputSchema.parse(JSON.parse(readFileSync("docs/examples/check-request.json", "utf8")));
+    const r = evaluateInspection(input, prepareRulebook(STARTER_RULEBOOK));
+    expect(documented).toEqual(r.findings.map((f) => ({ status: f.status, code: f.code, path: f.target.path, message: f.message })));
+    expect(r.summary.counts).toEqual({ pass: 21, warn: 0, "needs-info": 0, fail: 6 });
+  });
+});
