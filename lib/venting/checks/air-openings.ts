@@ -1,5 +1,6 @@
 import { atLeast } from "../compare";
 import { FINDING_CODES, MESSAGES, type Finding, type FindingTarget } from "../findings";
+import type { RuleRef } from "../rulebook/prepare";
 import type { AirOpening } from "../inputs";
 import {
   combinationFactor,
@@ -42,7 +43,7 @@ function checkOne(
   ctx: AirContext,
   o: AirOpening,
   requiredSqIn: number,
-  rule: { citation: string; ref: import("../rulebook/prepare").RuleRef | null },
+  rule: { citation: string; ref: RuleRef | null },
   out: Finding[],
   sizing: OpeningSizing[],
 ): boolean {
@@ -179,7 +180,7 @@ export function checkOutdoorOpenings(
   const factor = combo?.value === 1 ? combinationFactor(availableCuFt, requiredCuFt) : 1;
   const hasSingle = outdoor.some((o) => o.kind === "outdoor_single_high");
   let twoCount = 0;
-  let twoRule: { citation: string; ref: import("../rulebook/prepare").RuleRef | null } | null = null;
+  let twoRule: { citation: string; ref: RuleRef | null } | null = null;
   for (const o of outdoor) {
     let key: "opening_outdoor_vertical_btuh_per_sqin" | "opening_outdoor_horizontal_btuh_per_sqin" | "opening_outdoor_single_btuh_per_sqin";
     switch (o.kind) {

@@ -1,5 +1,6 @@
 import { atLeast } from "../compare";
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
+import type { RuleRef } from "../rulebook/prepare";
 import { finding, known, missingRuleFinding, segmentAppliance, segmentTarget, type VentRunContext } from "./shared";
 
 const CODE = FINDING_CODES.clearanceCombustibles;
@@ -12,7 +13,7 @@ export function checkClearanceCombustibles(ctx: VentRunContext, out: Finding[]):
   for (let i = 0; i < segs.length; i++) {
     const seg = segs[i]!;
     const a = segmentAppliance(ctx, seg);
-    let required: { value: number; citation: string; ref: import("../rulebook/prepare").RuleRef | null } | null = null;
+    let required: { value: number; citation: string; ref: RuleRef | null } | null = null;
     if (a && known(a.manualClearanceIn)) {
       required = { value: a.manualClearanceIn, citation: MANUAL_CITATION, ref: null };
     } else {

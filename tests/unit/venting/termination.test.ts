@@ -1,6 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { evaluateVentRun, terminationHeightRow, ventRunSchema } from "@/lib/venting";
 import { RB, furnace, goodRun, only, withCode } from "@/tests/fixtures/venting/rulebook";
+import { B1_ROWS } from "@/tests/fixtures/venting/termination-heights";
 
 function withTermination(t: Record<string, unknown>, appliance = furnace()) {
   const run = ventRunSchema.parse({ ...goodRun(), termination: { listedCap: true, capSizeIn: 4, distanceToVerticalWallFt: 10, ...t } });
@@ -98,5 +99,14 @@ describe("vent.min_height and vent.category", () => {
     const findings = evaluateVentRun(goodRun(), [furnace({ category: null, draft: null })], RB).findings;
     expect(only(findings, "vent.category").status).toBe("needs-info");
     expect(withCode(findings, "connector.slope")).toHaveLength(1);
+  });
+});
+
+describe("every row of the roof-pitch table (REFERENCE.md B1, IFGC Table 503.6.4, found)", () => {
+  test.each(B1_ROWS)("above $from/12 up to $to/12 → $minFt ft", ({ from, to, minFt }) => {
+    // the top of each row belongs to it; just above its start too
+    expect(terminationHeightRow(RB, to)?.row.minHeightFt).toBe(minFt);
+    expect(terminationHeightRow(RB, from + 0.01)?.row.minHeightFt).toBe(minFt);
+    expect(terminationHeightRow(RB, to)?.row.citation).toContain("503.6.4");
   });
 });
