@@ -73,7 +73,7 @@ export default async function RulebookPage({ params, searchParams }: { params: P
       </div>
 
       <div className="grid gap-6 xl:grid-cols-[1fr_16rem]">
-        <RulebookEditor rulebookId={rulebook.id} versionNumber={version.versionNumber} content={version.content} canEdit={canEdit} />
+        <RulebookEditor key={version.id} rulebookId={rulebook.id} versionNumber={version.versionNumber} content={version.content} canEdit={canEdit} />
         <aside aria-labelledby="versions-title" className="space-y-2">
           <h2 id="versions-title" className="text-sm font-bold uppercase tracking-wide text-ink-500">
             Versions

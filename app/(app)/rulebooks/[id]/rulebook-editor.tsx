@@ -206,7 +206,13 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                       control = <input id={id} type="checkbox" aria-label={label} className="h-5 w-5 accent-copper-600" checked={Boolean(value)} onChange={(e) => setCell(rowIndex, column, e.target.checked)} />;
                     } else if (column.kind === "enum") {
                       control = (
-                        <select id={id} aria-label={label} className="input py-1 text-sm" value={String(value ?? "")} onChange={(e) => setCell(rowIndex, column, e.target.value)}>
+                        <select
+                          id={id}
+                          aria-label={label}
+                          className={`input py-1 text-sm ${active === "parameters" ? "min-w-[17rem]" : "min-w-[9rem]"}`}
+                          value={String(value ?? "")}
+                          onChange={(e) => setCell(rowIndex, column, e.target.value)}
+                        >
                           {(column.options ?? []).map((o) => (
                             <option key={o} value={o}>
                               {active === "parameters" && column.key === "key" ? `${o}` : o}
@@ -214,13 +220,25 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                           ))}
                         </select>
                       );
+                    } else if (column.key === "citation" || column.key === "note") {
+                      control = (
+                        <textarea
+                          id={id}
+                          aria-label={label}
+                          aria-invalid={cellIssue ? true : undefined}
+                          rows={2}
+                          className="input min-w-[18rem] py-1 text-xs"
+                          value={value === null || value === undefined ? "" : String(value)}
+                          onChange={(e) => setCell(rowIndex, column, e.target.value)}
+                        />
+                      );
                     } else {
                       control = (
                         <input
                           id={id}
                           aria-label={label}
                           aria-invalid={cellIssue ? true : undefined}
-                          className={`input py-1 text-sm ${column.key === "citation" ? "min-w-[16rem]" : "min-w-[6rem]"}`}
+                          className="input min-w-[6rem] py-1 text-sm"
                           inputMode={column.kind === "number" ? "decimal" : undefined}
                           value={value === null || value === undefined ? "" : String(value)}
                           onChange={(e) => setCell(rowIndex, column, cellValue(column, e.target.value))}
