@@ -11,6 +11,8 @@ const systemChromium = ["/usr/bin/chromium", "/usr/bin/chromium-browser"].find((
 export default defineConfig({
   testDir: "tests/e2e",
   testMatch: "**/*.spec.ts",
+  // Only this folder is emptied by Playwright at start; the reports and database live beside it.
+  outputDir: "test-results/e2e-artifacts",
   timeout: 45_000,
   expect: { timeout: 10_000 },
   fullyParallel: false,
