@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import * as foundation from "./migrations/20261201000001_foundation";
 import * as rulebooks from "./migrations/20261201000002_rulebooks";
+import * as inspections from "./migrations/20261201000003_inspections";
 
 /**
  * The migrations as a static list, for runtimes that cannot load .ts files from a folder
@@ -10,6 +11,7 @@ import * as rulebooks from "./migrations/20261201000002_rulebooks";
 export const MIGRATIONS: Record<string, { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> }> = {
   "20261201000001_foundation.ts": foundation,
   "20261201000002_rulebooks.ts": rulebooks,
+  "20261201000003_inspections.ts": inspections,
 };
 
 export const staticMigrationSource: Knex.MigrationSource<string> = {
