@@ -21,7 +21,10 @@ function dateIn(n: number): string {
 }
 
 export async function seed(knex: Knex): Promise<void> {
-  // Children first; rulebook tables may not exist yet on an older schema.
+  // Children first; rulebook and inspection tables may not exist yet on an older schema.
+  for (const table of ["site_check_items", "photos", "inspection_comments", "inspections"]) {
+    if (await knex.schema.hasTable(table)) await knex(table).del();
+  }
   for (const table of ["audit_events", "login_attempts", "sessions", "jobs"]) await knex(table).del();
   if (await knex.schema.hasTable("rulebook_versions")) {
     await knex("companies").update({ default_rulebook_id: null });
