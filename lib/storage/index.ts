@@ -22,19 +22,22 @@ export interface BlobStorage {
   delete(key: string): Promise<void>;
 }
 
+/** The variables the drivers read (process.env, or a plain object in tests). */
+export type StorageEnv = Record<string, string | undefined>;
+
 /** The default uploads folder: FLUEWARD_UPLOADS_DIR, or data/uploads under the working directory. */
-export function defaultUploadsDir(env: NodeJS.ProcessEnv = process.env): string {
+export function defaultUploadsDir(env: StorageEnv = process.env): string {
   return env.FLUEWARD_UPLOADS_DIR ? path.resolve(env.FLUEWARD_UPLOADS_DIR) : path.join(/* turbopackIgnore: true */ process.cwd(), "data", "uploads");
 }
 
-function requiredEnv(env: NodeJS.ProcessEnv, name: string): string {
+function requiredEnv(env: StorageEnv, name: string): string {
   const value = env[name];
   if (!value) throw new Error(`STORAGE_DRIVER=s3 needs ${name} to be set.`);
   return value;
 }
 
 /** Builds the driver the environment asks for: STORAGE_DRIVER=disk (default), s3 or memory. */
-export function createStorageFromEnv(env: NodeJS.ProcessEnv = process.env): BlobStorage {
+export function createStorageFromEnv(env: StorageEnv = process.env): BlobStorage {
   const driver = (env.STORAGE_DRIVER ?? "disk").toLowerCase();
   switch (driver) {
     case "disk":

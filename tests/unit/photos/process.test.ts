@@ -1,7 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import crypto from "node:crypto";
-import sharp from "sharp";
+import sharp, { type Sharp } from "sharp";
 import { describe, expect, test } from "vitest";
 import { LONG_EDGE_PX, MAX_INPUT_PIXELS, PhotoRejectedError, THUMB_LONG_EDGE_PX, processPhoto } from "@/lib/photos/process";
 import { MAX_PHOTO_BYTES, PHOTO_MESSAGES } from "@/lib/schemas/photo";
@@ -89,8 +89,8 @@ describe("processPhoto: what is accepted", () => {
   });
 
   test.each([
-    ["PNG with transparency", (s: sharp.Sharp) => s.png(), "image/png"],
-    ["WebP", (s: sharp.Sharp) => s.webp(), "image/webp"],
+    ["PNG with transparency", (s: Sharp) => s.png(), "image/png"],
+    ["WebP", (s: Sharp) => s.webp(), "image/webp"],
   ] as const)("%s is re-encoded as a JPEG", async (_name, encode, sourceType) => {
     const base = sharp({ create: { width: 120, height: 80, channels: 4, background: { r: 0, g: 0, b: 0, alpha: 0 } } });
     const out = await processPhoto(await encode(base).toBuffer());
@@ -144,7 +144,7 @@ describe("processPhoto: what is refused, always with a message", () => {
   });
 
   test("a truncated JPEG", async () => {
-    const noisy = await sharp({ create: { width: 600, height: 400, channels: 3, noise: { type: "gaussian", mean: 128, sigma: 40 } } }).jpeg().toBuffer();
+    const noisy = await sharp({ create: { width: 600, height: 400, channels: 3, background: "#000000", noise: { type: "gaussian", mean: 128, sigma: 40 } } }).jpeg().toBuffer();
     const error = await rejection(noisy.subarray(0, Math.floor(noisy.length * 0.6)));
     expect(error.reason).toBe("unreadable");
     expect(error.code).toBe("unprocessable");
