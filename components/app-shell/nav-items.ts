@@ -12,6 +12,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: "/jobs", label: "Jobs", icon: "jobs", permission: "jobs.read" },
   { href: "/rulebooks", label: "Rulebooks", icon: "rulebooks", permission: "rulebooks.read" },
   { href: "/members", label: "Members", icon: "members", permission: "members.manage" },
+  { href: "/settings/site-checks", label: "Site checks", icon: "review", permission: "site_checks.manage" },
   { href: "/account", label: "Account", icon: "account", permission: null },
 ];
 

@@ -6,7 +6,7 @@ import { apiAs } from "./support/api";
 const EXPECTED_NAV = {
   installer: ["Jobs", "Rulebooks", "Account"],
   supervisor: ["Jobs", "Rulebooks", "Account"],
-  admin: ["Jobs", "Rulebooks", "Members", "Account"],
+  admin: ["Jobs", "Rulebooks", "Members", "Site checks", "Account"],
 } as const;
 
 test.describe("roles", () => {
