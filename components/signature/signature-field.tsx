@@ -220,7 +220,7 @@ export function SignatureField({ value, onChange, label = "Signature", statement
           <p id={statusId} aria-live="polite" className="text-xs text-ink-600">
             {hasDrawing ? "Signature drawn." : "The box is empty."}
           </p>
-          <button type="button" className="btn-secondary" onClick={clear} disabled={disabled || !hasDrawing}>
+          <button type="button" className="btn-secondary" onClick={clear} disabled={disabled || !hasDrawing} aria-label={`Clear the drawn signature (${label})`}>
             Clear
           </button>
         </div>

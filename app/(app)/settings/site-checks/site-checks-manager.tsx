@@ -119,7 +119,7 @@ export function SiteChecksManager() {
                     <div className="flex w-full shrink-0 flex-wrap items-center justify-end gap-1 sm:w-auto">
                       <button
                         type="button"
-                        className="btn-ghost px-3"
+                        className="btn-ghost px-3 text-lg"
                         aria-label={`Move “${item.label}” up`}
                         title="Move up"
                         disabled={busy || index === 0}
@@ -129,7 +129,7 @@ export function SiteChecksManager() {
                       </button>
                       <button
                         type="button"
-                        className="btn-ghost px-3"
+                        className="btn-ghost px-3 text-lg"
                         aria-label={`Move “${item.label}” down`}
                         title="Move down"
                         disabled={busy || index === list.length - 1}
