@@ -51,7 +51,7 @@ export function AppShell({ member, children }: { member: { name: string; role: R
         </footer>
 
         <nav aria-label="Main navigation" className="fixed inset-x-0 bottom-0 z-20 border-t border-ink-200 bg-white pb-[env(safe-area-inset-bottom)] lg:hidden">
-          <BottomLinks items={items} />
+          <BottomLinks items={items.filter((item) => item.phone)} />
         </nav>
       </div>
     </div>

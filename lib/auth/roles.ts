@@ -20,6 +20,7 @@ export const PERMISSIONS = {
   "members.manage": ["admin"],
   "company.manage": ["admin"],
   "audit.read": ["supervisor", "admin"],
+  "inspections.review": ["supervisor", "admin"],
   "site_checks.manage": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -74,3 +74,28 @@ export async function listAuditForEntity(args: { companyId: number; entityType: 
     createdAt: row.created_at,
   }));
 }
+
+/** A job's history: its own events and those of its inspections, newest first. */
+export async function listJobHistory(args: { companyId: number; jobId: number; limit?: number }): Promise<AuditEvent[]> {
+  const db = getDb();
+  const rows = await db("audit_events")
+    .where("company_id", args.companyId)
+    .andWhere((w) =>
+      w
+        .where({ entity_type: "job", entity_id: args.jobId })
+        .orWhere((w2) => w2.where("entity_type", "inspection").whereIn("entity_id", db("inspections").select("id").where({ company_id: args.companyId, job_id: args.jobId }))),
+    )
+    .orderBy("id", "desc")
+    .limit(args.limit ?? 100);
+  return rows.map((row) => ({
+    id: row.id,
+    action: row.action,
+    entityType: row.entity_type,
+    entityId: row.entity_id,
+    actorName: row.actor_name,
+    summary: row.summary,
+    before: parseJson(row.before_json),
+    after: parseJson(row.after_json),
+    createdAt: row.created_at,
+  }));
+}

@@ -5,8 +5,8 @@ import { apiAs } from "./support/api";
 
 const EXPECTED_NAV = {
   installer: ["Jobs", "Rulebooks", "Account"],
-  supervisor: ["Jobs", "Rulebooks", "Account"],
-  admin: ["Jobs", "Rulebooks", "Members", "Site checks", "Account"],
+  supervisor: ["Jobs", "Review", "Rulebooks", "Account"],
+  admin: ["Jobs", "Review", "Rulebooks", "Members", "Site checks", "Account"],
 } as const;
 
 test.describe("roles", () => {

@@ -1,4 +1,6 @@
+import Link from "next/link";
 import { requirePageMember } from "@/lib/auth/session";
+import { can } from "@/lib/auth/roles";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { PASSWORD_MIN_LENGTH } from "@/lib/auth/password-policy";
 import { ChangePasswordForm } from "./change-password-form";
@@ -33,6 +35,16 @@ export default async function AccountPage({ searchParams }: { searchParams: Prom
         </p>
         <ChangePasswordForm />
       </section>
+      {can(member.role, "site_checks.manage") ? (
+        <section className="card space-y-2 p-4" aria-labelledby="settings-title">
+          <h2 id="settings-title" className="text-base font-bold">
+            Company settings
+          </h2>
+          <Link href="/settings/site-checks" className="font-semibold text-copper-700 underline">
+            Site-check list
+          </Link>
+        </section>
+      ) : null}
       <div className="lg:hidden">
         <SignOutButton className="btn-secondary w-full" />
       </div>

@@ -7,7 +7,9 @@ import { can } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { getJobById, type Job } from "@/lib/data/jobs";
 import { listMembers } from "@/lib/data/members";
-import { listAuditForEntity } from "@/lib/data/audit";
+import { listJobHistory } from "@/lib/data/audit";
+import { listInspectionsForJob } from "@/lib/data/inspections";
+import { JobInspections } from "./job-inspections";
 import { idSchema } from "@/lib/schemas/common";
 
 export const metadata = { title: "Job" };
@@ -23,9 +25,10 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
     if (error instanceof AppError && error.code === "not_found") notFound();
     throw error;
   }
-  const [members, history] = await Promise.all([
+  const [members, history, inspections] = await Promise.all([
     listMembers({ companyId: member.companyId, activeOnly: true }),
-    listAuditForEntity({ companyId: member.companyId, entityType: "job", entityId: job.id, limit: 50 }),
+    listJobHistory({ companyId: member.companyId, jobId: job.id, limit: 60 }),
+    listInspectionsForJob({ companyId: member.companyId, jobId: job.id }),
   ]);
   const { id: _id, reference: _ref, version, createdAt: _c, updatedAt: _u, assignedInstallerName: _n, ...values } = job;
 
@@ -46,6 +49,10 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
           {job.siteStreet}, {job.siteCity}
           {job.sitePostalCode ? ` ${job.sitePostalCode}` : ""}
         </p>
+        <JobInspections jobId={job.id} inspections={inspections} canStart={can(member.role, "jobs.write") && job.status !== "cancelled"} />
+        <details className="group">
+          <summary className="cursor-pointer text-lg font-bold">Job details</summary>
+          <div className="mt-3">
         <JobForm
           mode="edit"
           jobId={job.id}
@@ -55,6 +62,8 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
           canAssign={can(member.role, "jobs.assign")}
           currentUserId={member.userId}
         />
+          </div>
+        </details>
       </div>
       <aside className="space-y-3" aria-labelledby="history-title">
         <h2 id="history-title" className="text-sm font-bold uppercase tracking-wide text-ink-500">

@@ -1,0 +1,29 @@
+import type { InspectionData } from "@/lib/inspections/data";
+
+type VentRun = NonNullable<InspectionData["ventRun"]>;
+
+/** The editor's form: like the stored data, but the vent run, its termination and the air space always exist. */
+export type InspectionFormValues = Omit<InspectionData, "ventRun" | "airSpace"> & {
+  ventRun: Omit<VentRun, "termination"> & { termination: NonNullable<VentRun["termination"]> };
+  airSpace: NonNullable<InspectionData["airSpace"]>;
+};
+
+export function toFormValues(data: InspectionData): InspectionFormValues {
+  const ventRun = data.ventRun ?? { id: "vent-run", segments: [], vent: {}, termination: null };
+  return {
+    ...data,
+    ventRun: { ...ventRun, termination: ventRun.termination ?? { nearbyOpenings: [] } },
+    airSpace: data.airSpace ?? { id: "air-space", rooms: [], openings: [] },
+  };
+}
+
+export function toData(values: InspectionFormValues): InspectionData {
+  return values as InspectionData;
+}
+
+let counter = 0;
+/** A short id for a new segment, room, opening or appliance; unique within the inspection. */
+export function newId(prefix: string): string {
+  counter += 1;
+  return `${prefix}-${Date.now().toString(36)}${counter.toString(36)}`;
+}

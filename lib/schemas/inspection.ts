@@ -1,0 +1,60 @@
+import { z } from "zod";
+import { idSchema } from "./common";
+import { inspectionDataSchema } from "@/lib/inspections/data";
+import { signatureSchema } from "@/lib/schemas/signature";
+
+export const inspectionCreateSchema = z.object({
+  /** Copy the appliances of this earlier inspection of the same job. */
+  copyAppliancesFrom: idSchema.optional(),
+});
+
+export const draftSaveSchema = z.object({
+  version: z.number({ error: "The draft's version is missing; reload the page." }).int().positive(),
+  data: inspectionDataSchema,
+});
+export type DraftSaveInput = z.input<typeof draftSaveSchema>;
+
+export const repinSchema = z.object({ rulebookVersionId: idSchema });
+
+export const submitSchema = z.object({
+  version: z.number().int().positive(),
+  signature: signatureSchema,
+});
+
+export const REVIEW_SECTIONS = ["general", "appliances", "ventRun", "airSpace", "readings", "siteChecks", "photos", "justifications"] as const;
+export type ReviewSection = (typeof REVIEW_SECTIONS)[number];
+
+export const REVIEW_SECTION_LABELS = {
+  general: "General",
+  appliances: "Appliances",
+  ventRun: "Vent run",
+  airSpace: "Combustion air",
+  readings: "Readings",
+  siteChecks: "Site checks",
+  photos: "Photos",
+  justifications: "Justifications",
+} as const satisfies Record<ReviewSection, string>;
+
+export const commentSchema = z.object({
+  section: z.enum(REVIEW_SECTIONS, { error: "Choose the section the comment is about." }),
+  body: z.string().trim().min(1, "Write the comment.").max(2000, "Keep the comment under 2,000 characters."),
+});
+
+export const returnSchema = z.object({
+  comments: z.array(commentSchema).min(1, "Add at least one comment saying what the installer must fix.").max(30),
+});
+
+export const approveSchema = z.object({
+  signature: signatureSchema,
+  password: z.string().min(1, "Enter your password to confirm the approval.").max(1000),
+});
+
+export const INSPECTION_QUEUE_SORTS = ["submitted_asc", "submitted_desc", "customer_asc", "installer_asc"] as const;
+export const inspectionListQuerySchema = z.object({
+  status: z.enum(["submitted", "returned", "draft", "approved", "all"]).default("submitted"),
+  q: z.string().trim().max(100).default(""),
+  sort: z.enum(INSPECTION_QUEUE_SORTS).default("submitted_asc"),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+export type InspectionListQuery = z.output<typeof inspectionListQuerySchema>;
