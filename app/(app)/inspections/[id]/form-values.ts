@@ -17,8 +17,12 @@ export function toFormValues(data: InspectionData): InspectionFormValues {
   };
 }
 
+/**
+ * The form's values as inspection data. The form leaves `undefined` for fields registered but
+ * never set (an unanswered site check); a JSON round trip drops them, as the server would.
+ */
 export function toData(values: InspectionFormValues): InspectionData {
-  return values as InspectionData;
+  return JSON.parse(JSON.stringify(values)) as InspectionData;
 }
 
 let counter = 0;
