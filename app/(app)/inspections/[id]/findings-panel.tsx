@@ -57,7 +57,7 @@ export function FindingsPanel({ findings, summary, rulebookLabel }: { findings: 
       <div className="fixed inset-x-0 bottom-[calc(56px+env(safe-area-inset-bottom))] z-30 border-t border-ink-200 bg-white/95 px-4 py-2 shadow-[0_-4px_12px_rgba(0,0,0,0.06)] backdrop-blur lg:hidden">
         <button type="button" className="flex w-full items-center justify-between gap-2 text-left" onClick={() => setOpen(true)} aria-expanded={open} aria-controls="findings-sheet">
           <Counts summary={summary} />
-          <span className="text-sm font-semibold text-copper-700">Findings ▲</span>
+          <span className="whitespace-nowrap text-sm font-semibold text-copper-700">Findings ▲</span>
         </button>
       </div>
       {open ? (

@@ -42,13 +42,17 @@ export function ReviewPanel({ inspection, isReviewer, memberName }: { inspection
   const [signature, setSignature] = useState<SignatureValue>({ ...EMPTY_SIGNATURE, typedName: memberName });
   const [password, setPassword] = useState("");
   const [error, setError] = useState<{ text: string; fields?: Record<string, string> } | null>(null);
-  const [busy, setBusy] = useState<"return" | "approve" | "revise" | null>(null);
+  const [busy, setBusy] = useState<"return" | "approve" | "revise" | "comment" | null>(null);
 
-  const act = async (kind: "return" | "approve" | "revise") => {
+  const act = async (kind: "return" | "approve" | "revise" | "comment") => {
     setBusy(kind);
     setError(null);
     try {
-      if (kind === "return") {
+      if (kind === "comment") {
+        for (const comment of drafts) await apiFetch(`/api/inspections/${inspection.id}/comments`, { method: "POST", body: comment });
+        setDrafts([]);
+        router.refresh();
+      } else if (kind === "return") {
         await apiFetch(`/api/inspections/${inspection.id}/return`, { method: "POST", body: { comments: drafts } });
         setDrafts([]);
         router.refresh();
@@ -187,9 +191,14 @@ export function ReviewPanel({ inspection, isReviewer, memberName }: { inspection
                 ))}
               </ul>
             ) : null}
-            <button type="button" className="btn-secondary" disabled={drafts.length === 0 || busy !== null} onClick={() => act("return")}>
-              {busy === "return" ? "Returning…" : `Return with ${drafts.length} comment${drafts.length === 1 ? "" : "s"}`}
-            </button>
+            <div className="flex flex-wrap gap-2">
+              <button type="button" className="btn-secondary" disabled={drafts.length === 0 || busy !== null} onClick={() => act("return")}>
+                {busy === "return" ? "Returning…" : `Return with ${drafts.length} comment${drafts.length === 1 ? "" : "s"}`}
+              </button>
+              <button type="button" className="btn-ghost" disabled={drafts.length === 0 || busy !== null} onClick={() => act("comment")}>
+                {busy === "comment" ? "Posting…" : "Post as notes only"}
+              </button>
+            </div>
           </div>
           <div className="space-y-2">
             <h3 className="text-base font-bold">Approve and sign</h3>
