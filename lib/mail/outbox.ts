@@ -1,6 +1,7 @@
 import "server-only";
 import fs from "node:fs";
 import path from "node:path";
+import { z } from "zod";
 import { OUTBOX_ID_PATTERN, defaultOutboxDir, type OutboxAttachment, type StoredOutboxMessage } from "./outbox-format";
 
 /**
@@ -71,8 +72,13 @@ async function readMessageFile(dir: string, id: string): Promise<StoredOutboxMes
   }
 }
 
-/** The newest messages first. */
-export async function listOutbox(args: { limit?: number } = {}): Promise<OutboxSummary[]> {
+/** The query of GET /api/dev/outbox: how many messages, optionally only those to one address. */
+export const outboxQuerySchema = z.object({
+  limit: z.coerce.number().int().min(1).max(OUTBOX_LIST_MAX).default(50),
+  to: z.string().trim().max(254).optional(),
+});
+
+async function readNewest(args: { limit?: number; to?: string }): Promise<StoredOutboxMessage[]> {
   const limit = Math.max(1, Math.min(args.limit ?? 50, OUTBOX_LIST_MAX));
   const dir = outboxDir();
   let names: string[];
@@ -86,12 +92,32 @@ export async function listOutbox(args: { limit?: number } = {}): Promise<OutboxS
     .map((name) => name.slice(0, -".json".length))
     .filter((id) => OUTBOX_ID_PATTERN.test(id))
     .sort()
-    .reverse()
-    .slice(0, limit);
-  const messages = await Promise.all(ids.map((id) => readMessageFile(dir, id)));
-  return messages
-    .filter((m): m is StoredOutboxMessage => m !== null)
-    .map((m) => ({ id: m.id, from: m.from, to: m.to, subject: m.subject, receivedAt: m.receivedAt, attachmentCount: m.attachments.length }));
+    .reverse();
+  const to = args.to?.toLowerCase();
+  const out: StoredOutboxMessage[] = [];
+  // Read in pages so a filter by recipient still finds `limit` matches without reading everything at once.
+  for (let start = 0; start < ids.length && out.length < limit; start += limit) {
+    const page = await Promise.all(ids.slice(start, start + limit).map((id) => readMessageFile(dir, id)));
+    for (const message of page) {
+      if (!message) continue;
+      if (to && !message.to.some((address) => address.toLowerCase() === to)) continue;
+      out.push(message);
+      if (out.length >= limit) break;
+    }
+  }
+  return out;
+}
+
+/** The newest messages first, as summaries. */
+export async function listOutbox(args: { limit?: number; to?: string } = {}): Promise<OutboxSummary[]> {
+  const messages = await readNewest(args);
+  return messages.map((m) => ({ id: m.id, from: m.from, to: m.to, subject: m.subject, receivedAt: m.receivedAt, attachmentCount: m.attachments.length }));
+}
+
+/** The newest messages first, whole, with their links (for the end-to-end tests). */
+export async function listOutboxMessages(args: { limit?: number; to?: string } = {}): Promise<OutboxMessage[]> {
+  const messages = await readNewest(args);
+  return messages.map((m) => ({ ...m, links: extractLinks(m.text, m.html) }));
 }
 
 /** One message with its links, or null (also for anything that is not a message id). */
