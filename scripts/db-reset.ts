@@ -1,6 +1,7 @@
 /** Drops every table (rolling back all migrations), migrates again and seeds the demo data. */
 import knexFactory from "knex";
 import { buildKnexConfig } from "../db/config";
+import { issueDemoRecords } from "./lib/demo-records";
 
 async function main() {
   const db = knexFactory(buildKnexConfig());
@@ -12,6 +13,7 @@ async function main() {
   } finally {
     await db.destroy();
   }
+  issueDemoRecords();
 }
 
 main().catch((error) => {

@@ -4,9 +4,11 @@
  */
 import knexFactory from "knex";
 import { buildKnexConfig } from "../db/config";
+import { issueDemoRecords } from "./lib/demo-records";
 
 async function main() {
   const db = knexFactory(buildKnexConfig());
+  let seeded = false;
   try {
     const [, applied] = await db.migrate.latest();
     if (applied.length) console.log(`[db] applied ${applied.length} migration(s)`);
@@ -14,10 +16,12 @@ async function main() {
     if (Number(row?.n ?? 0) === 0 && process.env.FLUEWARD_SKIP_SEED !== "1") {
       await db.seed.run();
       console.log("[db] seeded demo data");
+      seeded = true;
     }
   } finally {
     await db.destroy();
   }
+  if (seeded) issueDemoRecords();
 }
 
 main().catch((error) => {

@@ -21,6 +21,8 @@ export const PERMISSIONS = {
   "company.manage": ["admin"],
   "audit.read": ["supervisor", "admin"],
   "inspections.review": ["supervisor", "admin"],
+  "records.share": ["supervisor", "admin"],
+  "records.revoke": ["supervisor", "admin"],
   "site_checks.manage": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -13,6 +13,7 @@ import { nowIso } from "./clock";
 import { getCurrentRulebookVersion, getRulebookVersionById } from "./rulebooks";
 import { listSiteCheckItems } from "./site-checks";
 import { assertEditable, getInspectionAccess, type InspectionStatus } from "./inspection-access";
+import { discardPreparedRecord, insertRecord, prepareRecord } from "./records";
 
 export interface InspectionComment {
   id: number;
@@ -423,33 +424,47 @@ export async function returnInspection(args: { member: Member; id: number; comme
  * Approves and signs. The conditional update on status makes a double approval succeed once;
  * approval locks the inspection, and approving a revision supersedes the earlier approved one.
  */
-export async function approveInspection(args: { member: Member; id: number; typedName: string; signaturePng: string }) {
+export async function approveInspection(args: { member: Member; id: number; typedName: string; signaturePng: string; baseUrl: string }) {
   const { member } = args;
   const access = await getInspectionAccess({ companyId: member.companyId, inspectionId: args.id });
   if (access.status !== "submitted") {
     throw new AppError(access.status === "approved" ? "conflict" : "unprocessable", access.status === "approved" ? "This inspection is already approved." : "Only a submitted inspection can be approved.");
   }
-  await getDb().transaction(async (trx) => {
-    const now = nowIso();
-    const updated = await trx("inspections")
-      .where({ id: args.id, company_id: member.companyId, status: "submitted" })
-      .update({ status: "approved", approved_by: member.userId, supervisor_signed_name: args.typedName, supervisor_signature_png: args.signaturePng, approved_at: now, version: trx.raw("version + 1"), updated_at: now });
-    if (updated !== 1) throw new AppError("conflict", "This inspection is already approved.");
-    const row = await trx("inspections").where({ id: args.id }).first("root_inspection_id", "revision", "job_id");
-    await trx("inspections")
-      .where({ company_id: member.companyId, root_inspection_id: row.root_inspection_id, status: "approved" })
-      .andWhere("revision", "<", row.revision)
-      .update({ status: "superseded", superseded_at: now, updated_at: now });
-    await trx("jobs").where({ id: row.job_id, company_id: member.companyId }).whereNot({ status: "cancelled" }).update({ status: "completed", updated_at: now });
-    await recordAudit(trx, {
-      companyId: member.companyId,
-      actor: actorOf(member),
-      action: "inspection.approved",
-      entityType: "inspection",
-      entityId: args.id,
-      summary: `Approved and signed "${args.typedName}" (revision ${row.revision})`,
-    });
+  const approvedAt = nowIso();
+  // The record is rendered and stored first; the transaction below only flips the status and
+  // inserts the record row, so an approval never exists without its record.
+  const prepared = await prepareRecord({
+    companyId: member.companyId,
+    inspectionId: args.id,
+    baseUrl: args.baseUrl,
+    approval: { signedName: args.typedName, signaturePng: args.signaturePng, approvedAt },
   });
+  try {
+    await getDb().transaction(async (trx) => {
+      const updated = await trx("inspections")
+        .where({ id: args.id, company_id: member.companyId, status: "submitted", version: prepared.inspectionVersion })
+        .update({ status: "approved", approved_by: member.userId, supervisor_signed_name: args.typedName, supervisor_signature_png: args.signaturePng, approved_at: approvedAt, version: prepared.inspectionVersion + 1, updated_at: approvedAt });
+      if (updated !== 1) throw new AppError("conflict", "This inspection was approved or returned by someone else just now. Reload to see it.");
+      const row = await trx("inspections").where({ id: args.id }).first("root_inspection_id", "revision", "job_id");
+      await trx("inspections")
+        .where({ company_id: member.companyId, root_inspection_id: row.root_inspection_id, status: "approved" })
+        .andWhere("revision", "<", row.revision)
+        .update({ status: "superseded", superseded_at: approvedAt, updated_at: approvedAt });
+      await trx("jobs").where({ id: row.job_id, company_id: member.companyId }).whereNot({ status: "cancelled" }).update({ status: "completed", updated_at: approvedAt });
+      await recordAudit(trx, {
+        companyId: member.companyId,
+        actor: actorOf(member),
+        action: "inspection.approved",
+        entityType: "inspection",
+        entityId: args.id,
+        summary: `Approved and signed "${args.typedName}" (revision ${row.revision})`,
+      });
+      await insertRecord(trx, { companyId: member.companyId, inspectionId: args.id, actor: actorOf(member), prepared });
+    });
+  } catch (error) {
+    await discardPreparedRecord(prepared);
+    throw error;
+  }
   return getInspection({ companyId: member.companyId, id: args.id });
 }
 

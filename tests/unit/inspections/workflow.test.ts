@@ -1,3 +1,4 @@
+import path from "node:path";
 import type { Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { createTestDatabase } from "../../fixtures/test-db";
@@ -24,6 +25,7 @@ beforeAll(async () => {
   db = t.db;
   cleanup = t.cleanup;
   process.env.FLUEWARD_DB_FILE = t.file;
+  process.env.FLUEWARD_UPLOADS_DIR = path.join(path.dirname(t.file), "uploads");
   inspections = await import("@/lib/data/inspections");
   siteChecks = await import("@/lib/data/site-checks");
   world = await buildInspectionWorld(db);
@@ -103,8 +105,8 @@ describe("inspection workflow", () => {
 
     const again = await inspections.submitInspection({ member: world.a.installer, id, version: returned.version, typedName: "I One", signaturePng: SIGNATURE });
     const results = await Promise.allSettled([
-      inspections.approveInspection({ member: world.a.supervisor, id, typedName: "S One", signaturePng: SIGNATURE }),
-      inspections.approveInspection({ member: world.a.supervisor, id, typedName: "S One", signaturePng: SIGNATURE }),
+      inspections.approveInspection({ member: world.a.supervisor, id, typedName: "S One", signaturePng: SIGNATURE, baseUrl: "http://flueward.test" }),
+      inspections.approveInspection({ member: world.a.supervisor, id, typedName: "S One", signaturePng: SIGNATURE, baseUrl: "http://flueward.test" }),
     ]);
     expect(results.filter((r) => r.status === "fulfilled")).toHaveLength(1);
     expect(again.status).toBe("submitted");
@@ -120,7 +122,7 @@ describe("inspection workflow", () => {
     await expectAppError(inspections.reviseInspection({ member: world.a.supervisor, id }), "conflict");
 
     const r2 = await inspections.submitInspection({ member: world.a.installer, id: revisionId, version: revision.version, typedName: "I One", signaturePng: SIGNATURE });
-    await inspections.approveInspection({ member: world.a.supervisor, id: r2.id, typedName: "S One", signaturePng: SIGNATURE });
+    await inspections.approveInspection({ member: world.a.supervisor, id: r2.id, typedName: "S One", signaturePng: SIGNATURE, baseUrl: "http://flueward.test" });
     expect((await inspections.getInspection({ companyId: world.a.companyId, id })).status).toBe("superseded");
     expect((await inspections.getInspection({ companyId: world.a.companyId, id: revisionId })).revisions.map((r) => r.revision)).toEqual([1, 2]);
 
@@ -132,7 +134,7 @@ describe("inspection workflow", () => {
     const { id } = await inspections.createInspection({ member: world.b.installer, jobId: world.b.jobId });
     await expectAppError(inspections.getInspection({ companyId: world.a.companyId, id }), "not_found");
     await expectAppError(inspections.saveDraft({ member: world.a.supervisor, id, version: 1, data: inspectionDataSchema.parse({}) }), "not_found");
-    await expectAppError(inspections.approveInspection({ member: world.a.supervisor, id, typedName: "x", signaturePng: SIGNATURE }), "not_found");
+    await expectAppError(inspections.approveInspection({ member: world.a.supervisor, id, typedName: "x", signaturePng: SIGNATURE, baseUrl: "http://flueward.test" }), "not_found");
     await expectAppError(inspections.createInspection({ member: world.a.installer, jobId: world.b.jobId }), "not_found");
   });
 

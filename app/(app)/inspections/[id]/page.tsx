@@ -13,6 +13,9 @@ import { InspectionEditor } from "./inspection-editor";
 import { InspectionStatusBadge } from "@/components/inspection/inspection-status-badge";
 import { ReviewPanel } from "./review-panel";
 import { RepinControl } from "./repin-control";
+import { RecordPanel } from "./record-panel";
+import { can } from "@/lib/auth/roles";
+import { getJobById } from "@/lib/data/jobs";
 
 export const metadata = { title: "Inspection" };
 
@@ -38,11 +41,12 @@ export default async function InspectionPage({ params }: { params: Promise<{ id:
     if (error instanceof AppError && error.code === "not_found") notFound();
     throw error;
   }
-  const [version, items, fromJob, rulebook] = await Promise.all([
+  const [version, items, fromJob, rulebook, job] = await Promise.all([
     getRulebookVersionById({ companyId: member.companyId, versionId: inspection.rulebookVersion.id }),
     listSiteCheckItems({ companyId: member.companyId }),
     jobAppliances(member.companyId, inspection.jobId, inspection.id),
     getRulebook({ companyId: member.companyId, id: inspection.rulebookVersion.rulebookId }),
+    getJobById({ companyId: member.companyId, id: inspection.jobId }),
   ]);
   const editable =
     EDITABLE_STATUSES.includes(inspection.status) &&
@@ -109,7 +113,16 @@ export default async function InspectionPage({ params }: { params: Promise<{ id:
       jobAppliances={fromJob}
       memberName={member.name}
       header={header}
-      reviewPanel={!editable ? <ReviewPanel inspection={serializeForReview(inspection)} isReviewer={isReviewer} memberName={member.name} /> : undefined}
+      reviewPanel={
+        !editable ? (
+          <>
+            <ReviewPanel inspection={serializeForReview(inspection)} isReviewer={isReviewer} memberName={member.name} />
+            {inspection.status === "approved" || inspection.status === "superseded" ? (
+              <RecordPanel inspectionId={inspection.id} canShare={can(member.role, "records.share")} customerEmail={job.customerEmail} />
+            ) : null}
+          </>
+        ) : undefined
+      }
     />
   );
 }

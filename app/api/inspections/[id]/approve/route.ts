@@ -7,6 +7,7 @@ import { approveInspection } from "@/lib/data/inspections";
 import { idParamsSchema } from "@/lib/schemas/common";
 import { approveSchema } from "@/lib/schemas/inspection";
 import { assertDrawnSignature } from "@/lib/signature/validate-png";
+import { publicBaseUrl } from "@/lib/api/base-url";
 
 /** Approve and sign, confirmed with the supervisor's own password. */
 export const POST = apiRoute<{ id: string }>(async (request, context) => {
@@ -18,5 +19,5 @@ export const POST = apiRoute<{ id: string }>(async (request, context) => {
     throw new AppError("validation_failed", undefined, { fields: { password: "That is not your password. Approval needs your own password." } });
   }
   await assertDrawnSignature(input.signature.signaturePng);
-  return json({ inspection: await approveInspection({ member, id, typedName: input.signature.typedName, signaturePng: input.signature.signaturePng }) });
+  return json({ inspection: await approveInspection({ member, id, typedName: input.signature.typedName, signaturePng: input.signature.signaturePng, baseUrl: publicBaseUrl(request) }) });
 });
