@@ -166,7 +166,7 @@ describe("backup and restore", () => {
     const { dir } = await createBackup({ dbFile, uploadsDir, backupsRoot: path.join(work, "backups-3") });
     const copy = path.join(dir, BACKUP_DB_NAME);
     const bytes = fs.readFileSync(copy);
-    bytes[bytes.length - 100] ^= 0xff;
+    bytes.writeUInt8(bytes.readUInt8(bytes.length - 100) ^ 0xff, bytes.length - 100);
     fs.writeFileSync(copy, bytes);
     const target = path.join(work, "from-damaged");
     await expect(restoreBackup({ backupDir: dir, dataDir: target })).rejects.toThrow(/does not match its manifest/);
