@@ -47,7 +47,9 @@ export async function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
 
   if (pathname.startsWith("/api/")) {
-    const csp = "default-src 'none'; frame-ancestors 'none'";
+    // Nothing under /api is a document: sandbox it too, so a photo or PDF opened directly can
+    // never run anything (this header replaces any CSP the handler set).
+    const csp = "default-src 'none'; frame-ancestors 'none'; sandbox";
     if (isCrossSiteWrite(request)) {
       const refused = NextResponse.json(
         { error: { code: "cross_site_refused", message: "This request came from another site and was refused." } },
