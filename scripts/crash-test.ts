@@ -180,10 +180,12 @@ async function approver(installer: Client, supervisor: Client, signature: string
   let draft: { id: number; version: number } | null = null;
   let photoDone = false;
   let justified: Record<string, unknown> | null = null;
+  let justifiedSaved = false;
   const next = () => {
     draft = null;
     photoDone = false;
     justified = null;
+    justifiedSaved = false;
   };
   while (!deadline()) {
     if (!draft) {
@@ -206,7 +208,10 @@ async function approver(installer: Client, supervisor: Client, signature: string
     const { status, version } = state.body.inspection;
     d.version = version;
     if (status === "draft") {
-      if ((acked.drafts.get(d.id)?.seq ?? 0) < 2 && !(await saveDraft(installer, d, justified))) continue;
+      if (!justifiedSaved) {
+        justifiedSaved = Boolean(await saveDraft(installer, d, justified));
+        continue;
+      }
       const submitted = await send<{ inspection: { version: number } }>(installer, "POST", `/api/inspections/${d.id}/submit`, {
         json: { version: d.version, signature: { typedName: "Tamsin Wexley", signaturePng: signature } },
       });
