@@ -2,7 +2,7 @@
 // "N passed, N failed". A missing report (a runner that crashed) counts as one failure.
 import fs from "node:fs";
 
-const [unitPath, e2ePath, buildStatus] = process.argv.slice(2);
+const [unitPath, e2ePath, buildStatus, opsPath] = process.argv.slice(2);
 let passed = 0;
 let failed = 0;
 let skipped = 0;
@@ -39,6 +39,19 @@ if (buildStatus && buildStatus !== "0") {
   } else {
     console.log(`end-to-end report missing: ${e2ePath}`);
     failed += 1;
+  }
+}
+
+if (opsPath && (!buildStatus || buildStatus === "0")) {
+  let lines = [];
+  try {
+    lines = fs.readFileSync(opsPath, "utf8").split("\n").filter(Boolean);
+  } catch {
+    lines = [];
+  }
+  for (const line of lines) {
+    if (line.endsWith(" pass")) passed += 1;
+    else failed += 1;
   }
 }
 

@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
-# The one test command (npm test): unit tests, a production build, end-to-end tests, and a
-# closing line "N passed, N failed" counted from both runners' JSON reports.
+# The one test command (npm test): unit tests, a production build, end-to-end tests (including
+# the authorization matrix and the fuzz test), the concurrency and crash tests, and a closing
+# line "N passed, N failed" counted from every part.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
@@ -18,14 +19,23 @@ rm -rf .next
 npx next build > test-results/build.log 2>&1 || { build_status=$?; tail -40 test-results/build.log; }
 
 e2e_status=0
+ops_status=0
+: > test-results/ops-results.txt
 if [[ $build_status -eq 0 ]]; then
   echo "== end-to-end tests (playwright)"
   npx playwright test
   e2e_status=$?
+
+  echo "== concurrency test (two servers, one database file)"
+  if npx tsx scripts/concurrency-test.ts; then echo "concurrency pass" >> test-results/ops-results.txt; else echo "concurrency fail" >> test-results/ops-results.txt; ops_status=1; fi
+
+  # The full run kills the server at least 50 times (npm run test:crash); CI keeps a shorter run.
+  echo "== crash test (SIGKILL during writes)"
+  if CRASH_KILLS="${CRASH_KILLS:-25}" npx tsx scripts/crash-test.ts; then echo "crash pass" >> test-results/ops-results.txt; else echo "crash fail" >> test-results/ops-results.txt; ops_status=1; fi
 fi
 
-node scripts/test-summary.mjs test-results/unit-report.json test-results/e2e-report.json "$build_status"
+node scripts/test-summary.mjs test-results/unit-report.json test-results/e2e-report.json "$build_status" test-results/ops-results.txt
 summary_status=$?
 
-if [[ $unit_status -ne 0 || $build_status -ne 0 || $e2e_status -ne 0 || $summary_status -ne 0 ]]; then exit 1; fi
+if [[ $unit_status -ne 0 || $build_status -ne 0 || $e2e_status -ne 0 || $ops_status -ne 0 || $summary_status -ne 0 ]]; then exit 1; fi
 exit 0
