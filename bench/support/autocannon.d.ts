@@ -1,0 +1,52 @@
+// The few parts of autocannon's programmatic API the benchmarks use (the package ships no types).
+declare module "autocannon" {
+  interface Histogram {
+    average: number;
+    mean: number;
+    stddev: number;
+    min: number;
+    max: number;
+    total: number;
+    p50: number;
+    p90: number;
+    p97_5: number;
+    p99: number;
+  }
+  interface Result {
+    requests: Histogram;
+    latency: Histogram;
+    throughput: Histogram;
+    errors: number;
+    timeouts: number;
+    non2xx: number;
+    mismatches: number;
+    resets: number;
+    duration: number;
+    "2xx": number;
+    "4xx": number;
+    "5xx": number;
+    statusCodeStats: Record<string, { count: number }>;
+  }
+  interface Request {
+    method?: string;
+    path?: string;
+    headers?: Record<string, string>;
+    body?: string;
+    /** Called before each request is sent; may change and return it. */
+    setupRequest?: (request: Request) => Request;
+  }
+  interface Options {
+    url: string;
+    connections?: number;
+    duration?: number;
+    timeout?: number;
+    method?: string;
+    headers?: Record<string, string>;
+    body?: string;
+    requests?: Request[];
+    pipelining?: number;
+  }
+  function autocannon(options: Options): Promise<Result>;
+  export default autocannon;
+  export type { Result, Options };
+}
