@@ -4,7 +4,7 @@ import { verifyPassword } from "./passwords";
 import { getCookieSession } from "./session";
 import { findCredentialsByEmail } from "@/lib/data/users";
 import { createSession, revokeSession, hashSessionId } from "@/lib/data/sessions";
-import { clearFailuresForEmail, recentFailures, recordLoginAttempt } from "@/lib/data/login-attempts";
+import { clearFailuresForEmail, markLoginAttemptSucceeded, reserveLoginAttempt } from "@/lib/data/login-attempts";
 import { recordAudit } from "@/lib/data/audit";
 import { getDb } from "@/db/knex";
 
@@ -30,13 +30,17 @@ export function retryAfterSeconds(failures: string[], limit: number, nowMs: numb
 export async function signIn(args: { email: string; password: string; client: string; userAgent: string }): Promise<{ mustChangePassword: boolean }> {
   const nowMs = Date.now();
   const since = new Date(nowMs - SIGN_IN_WINDOW_MS).toISOString();
-  // Rate limiting comes before hashing, so a flood costs the server only a cheap query.
-  const failures = await recentFailures({ email: args.email, client: args.client, sinceIso: since });
-  const wait = Math.max(
-    retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs),
-    retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs),
-  );
-  if (wait > 0) {
+  // Rate limiting comes before hashing, so a flood costs the server only a cheap query. The attempt
+  // is recorded as a failure before hashing (and flipped on success): concurrent attempts count
+  // against the limits while they wait for the hash worker.
+  const waitFor = (failures: { emailFailures: string[]; clientFailures: string[] }) =>
+    Math.max(
+      retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs),
+      retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs),
+    );
+  const { failures, attemptId } = await reserveLoginAttempt({ email: args.email, client: args.client, sinceIso: since }, (seen) => waitFor(seen) === 0);
+  if (attemptId === null) {
+    const wait = waitFor(failures);
     throw new AppError("rate_limited", `Too many failed sign-ins. Wait ${formatWait(wait)} and try again, or ask your admin to reset your password.`, {
       headers: { "Retry-After": String(wait) },
     });
@@ -46,11 +50,10 @@ export async function signIn(args: { email: string; password: string; client: st
   // Always compare (against a dummy hash for unknown e-mails) so both failures take the same time.
   const matches = await verifyPassword(args.password, credentials?.passwordHash);
   if (!credentials || !matches || !credentials.active) {
-    await recordLoginAttempt({ email: args.email, client: args.client, succeeded: false });
     throw new AppError("unauthenticated", SIGN_IN_FAILED_MESSAGE);
   }
 
-  await recordLoginAttempt({ email: args.email, client: args.client, succeeded: true });
+  await markLoginAttemptSucceeded(attemptId);
   await clearFailuresForEmail(args.email);
 
   const session = await getCookieSession();
