@@ -14,7 +14,7 @@ export const PAGE = { width: 612, height: 792 } as const;
  * Margins of the text area. The footer sits below `bottom`, the running header above `top`;
  * nothing the layout places may cross these lines (the tests check word boxes against them).
  */
-export const MARGIN = { left: 40, right: 40, top: 46, bottom: 62 } as const;
+export const MARGIN = { left: 40, right: 40, top: 46, bottom: 66 } as const;
 
 export const CONTENT_WIDTH = PAGE.width - MARGIN.left - MARGIN.right;
 
