@@ -7,7 +7,7 @@ import { z } from "zod";
 import { expect, request as playwrightRequest, test, type APIRequestContext } from "@playwright/test";
 import { apiAs } from "./support/api";
 import { discoverRouteHandlers, fillPattern } from "./support/routes";
-import { buildCompanyWorld, createMember, signedIn, templateInspectionData, type CompanyWorld } from "./support/world";
+import { buildCompanyWorld, fetchWithRetry, createMember, signedIn, templateInspectionData, type CompanyWorld } from "./support/world";
 import { signaturePng } from "./support/signature";
 import { changePasswordSchema, signInSchema } from "../../lib/schemas/auth";
 import { approveSchema, commentSchema, draftSaveSchema, inspectionCreateSchema, repinSchema, returnSchema, submitSchema } from "../../lib/schemas/inspection";
@@ -365,7 +365,7 @@ test("fuzz: every JSON endpoint refuses bad bodies with a 4xx in the common shap
     const scopedBefore = scopedFingerprint(world, fuzzer.id);
     await pool(bodies, CONCURRENCY, async (body) => {
       const headers: Record<string, string> = body.contentType ? { "content-type": body.contentType } : {};
-      const response = await client.fetch(url, { method: handler.method, headers, data: body.bytes, failOnStatusCode: false, maxRedirects: 0 });
+      const response = await fetchWithRetry(client, url, { method: handler.method, headers, data: body.bytes, failOnStatusCode: false, maxRedirects: 0 });
       sent++;
       const status = response.status();
       const text = await response.text();
