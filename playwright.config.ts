@@ -13,7 +13,7 @@ export default defineConfig({
   testMatch: "**/*.spec.ts",
   // Only this folder is emptied by Playwright at start; the reports and database live beside it.
   outputDir: "test-results/e2e-artifacts",
-  timeout: 45_000,
+  timeout: 90_000,
   expect: { timeout: 10_000 },
   fullyParallel: false,
   workers: 2,
@@ -29,8 +29,12 @@ export default defineConfig({
     },
   },
   projects: [
-    { name: "desktop", use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 } }, testIgnore: /phone\.spec\.ts$/ },
+    { name: "desktop", use: { ...devices["Desktop Chrome"], viewport: { width: 1280, height: 900 } }, testIgnore: [/phone\.spec\.ts$/, /security-.*\.spec\.ts$/] },
     { name: "phone", use: { ...devices["Desktop Chrome"], viewport: { width: 375, height: 812 }, isMobile: false, hasTouch: true }, testMatch: /phone\.spec\.ts$/ },
+    // The authorization matrix and the fuzz test run after the rest, one after the other, so the
+    // fuzz test's whole-database fingerprint sees no other writer.
+    { name: "security-authz", use: { ...devices["Desktop Chrome"] }, testMatch: /security-authz\.spec\.ts$/, dependencies: ["desktop", "phone"] },
+    { name: "security-fuzz", use: { ...devices["Desktop Chrome"] }, testMatch: /security-fuzz\.spec\.ts$/, dependencies: ["security-authz"] },
   ],
   webServer: {
     command: "bash scripts/e2e-server.sh",

@@ -146,7 +146,7 @@ const MATRIX: Record<string, Rule> = {
   // Too short a label: authorised callers get 400, so no item joins the list other specs use.
   "POST /api/site-checks": { who: "admins", body: () => ({ data: { label: "x" } }) },
   // Exists only while FLUEWARD_BENCH=1 (benchmarks); a plain 404 in every other run.
-  "GET /api/bench/ping": { who: "nobody", inFlight: true },
+  "GET /api/bench/ping": { who: "nobody" },
   "GET /api/verify": { who: "public", query: "?code=ZZZZ-ZZZZ-ZZZZ" },
   "POST /api/verify": { who: "public", body: () => ({ multipart: { file: { name: "record.pdf", mimeType: "application/pdf", buffer: TINY_PDF } } }) },
 };

@@ -107,7 +107,7 @@ export function RecordPanel({ inspectionId, canShare, customerEmail }: { inspect
   return (
     <section aria-labelledby="record-title" className="card space-y-4 p-4" data-testid="record-panel">
       <h2 id="record-title" className="text-lg font-bold">
-        Signed record
+        Record PDF and sharing
       </h2>
       <ul className="space-y-2">
         {query.data.records.map((r) => (
