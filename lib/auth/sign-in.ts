@@ -4,7 +4,7 @@ import { verifyPassword } from "./passwords";
 import { getCookieSession } from "./session";
 import { findCredentialsByEmail } from "@/lib/data/users";
 import { createSession, revokeSession, hashSessionId } from "@/lib/data/sessions";
-import { clearFailuresForEmail, markLoginAttemptSucceeded, reserveLoginAttempt } from "@/lib/data/login-attempts";
+import { clearFailuresForEmail, markLoginAttemptSucceeded, recentFailures, reserveLoginAttempt } from "@/lib/data/login-attempts";
 import { recordAudit } from "@/lib/data/audit";
 import { getDb } from "@/db/knex";
 
@@ -27,24 +27,51 @@ export function retryAfterSeconds(failures: string[], limit: number, nowMs: numb
   return Math.max(0, Math.ceil((lastMs + waitMs - nowMs) / 1000));
 }
 
+/**
+ * Until when (ms) an account (`e:`) or client address (`c:`) must wait, as last read from the
+ * database. Failures only accumulate within a wait, so the wait read stays valid until it ends;
+ * the database stays the truth (another server process reads it for itself).
+ */
+const blockedUntilMs = new Map<string, number>();
+const MAX_REMEMBERED_BLOCKS = 10_000;
+
+function rememberBlock(key: string, waitSeconds: number, nowMs: number): void {
+  if (waitSeconds <= 0) return;
+  if (blockedUntilMs.size >= MAX_REMEMBERED_BLOCKS) {
+    for (const [k, until] of blockedUntilMs) if (until <= nowMs) blockedUntilMs.delete(k);
+    if (blockedUntilMs.size >= MAX_REMEMBERED_BLOCKS) blockedUntilMs.clear();
+  }
+  blockedUntilMs.set(key, nowMs + waitSeconds * 1000);
+}
+
+function rateLimited(waitSeconds: number): AppError {
+  return new AppError("rate_limited", `Too many failed sign-ins. Wait ${formatWait(waitSeconds)} and try again, or ask your admin to reset your password.`, {
+    headers: { "Retry-After": String(waitSeconds) },
+  });
+}
+
 export async function signIn(args: { email: string; password: string; client: string; userAgent: string }): Promise<{ mustChangePassword: boolean }> {
   const nowMs = Date.now();
   const since = new Date(nowMs - SIGN_IN_WINDOW_MS).toISOString();
-  // Rate limiting comes before hashing, so a flood costs the server only a cheap query. The attempt
-  // is recorded as a failure before hashing (and flipped on success): concurrent attempts count
-  // against the limits while they wait for the hash worker.
-  const waitFor = (failures: { emailFailures: string[]; clientFailures: string[] }) =>
-    Math.max(
-      retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs),
-      retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs),
-    );
+  // Rate limiting comes before hashing. A client or account already known to be waiting is
+  // refused from memory, so a flood costs no query at all; otherwise the limits are read, and an
+  // attempt that may go ahead is recorded as a failure before hashing (flipped on success) in the
+  // check's own transaction, so concurrent attempts count against the limits while they wait
+  // for the hash worker.
+  const keys = [`e:${args.email}`, `c:${args.client}`];
+  const known = Math.max(...keys.map((key) => Math.ceil(((blockedUntilMs.get(key) ?? 0) - nowMs) / 1000)));
+  if (known > 0) throw rateLimited(known);
+  const waitFor = (failures: { emailFailures: string[]; clientFailures: string[] }) => {
+    const email = retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs);
+    const client = retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs);
+    rememberBlock(keys[0]!, email, nowMs);
+    rememberBlock(keys[1]!, client, nowMs);
+    return Math.max(email, client);
+  };
+  const wait = waitFor(await recentFailures({ email: args.email, client: args.client, sinceIso: since }));
+  if (wait > 0) throw rateLimited(wait);
   const { failures, attemptId } = await reserveLoginAttempt({ email: args.email, client: args.client, sinceIso: since }, (seen) => waitFor(seen) === 0);
-  if (attemptId === null) {
-    const wait = waitFor(failures);
-    throw new AppError("rate_limited", `Too many failed sign-ins. Wait ${formatWait(wait)} and try again, or ask your admin to reset your password.`, {
-      headers: { "Retry-After": String(wait) },
-    });
-  }
+  if (attemptId === null) throw rateLimited(waitFor(failures));
 
   const credentials = await findCredentialsByEmail(args.email);
   // Always compare (against a dummy hash for unknown e-mails) so both failures take the same time.
