@@ -107,7 +107,7 @@ export function attachmentLabel(input: RecordInput, attachedTo: string | null): 
   }
   if (attachedTo.startsWith("check:")) {
     const key = attachedTo.slice("check:".length);
-    return input.siteChecks.find((c) => c.key === key)?.label ?? key;
+    return `site check “${input.siteChecks.find((c) => c.key === key)?.label ?? key}”`;
   }
   return attachedTo;
 }

@@ -2,6 +2,7 @@ import fs from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
 import { PDFHexString, type PDFDocument, type PDFFont } from "pdf-lib";
+import { registerEncoder } from "./draw";
 
 /**
  * The record's typefaces, read from the installed font packages. The primary face is the app's
@@ -76,7 +77,7 @@ function fastEncoding(font: PDFFont): void {
   if (!embedder?.font || !embedder.subset || !embedder.glyphs || !embedder.glyphIdMap || !embedder.glyphCache) return;
   const e = embedder as SubsetEmbedder;
   const codes = new Map<number, string>();
-  e.encodeText = (text: string): PDFHexString => {
+  const encode = (text: string): string => {
     let hex = "";
     let added = false;
     for (const ch of text) {
@@ -94,8 +95,10 @@ function fastEncoding(font: PDFFont): void {
       hex += code;
     }
     if (added) e.glyphCache.invalidate();
-    return PDFHexString.of(hex);
+    return hex;
   };
+  e.encodeText = (text: string): PDFHexString => PDFHexString.of(encode(text));
+  registerEncoder(font, encode);
 }
 
 function loadFace(key: FaceKey): FaceMetrics {

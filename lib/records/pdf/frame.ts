@@ -5,6 +5,7 @@ import type { DocumentFonts } from "./fonts";
 import type { Layout } from "./layout";
 import { drawAligned, drawLine, textWidth, wrapText, type TextStyle } from "./text";
 import { COLOURS, MARGIN, PAGE, SIZE } from "./theme";
+import { line } from "./draw";
 
 /** Lowest point any text of the frame reaches: well inside the paper, clear of a printer's edge. */
 export const FRAME_INSET = 20;
@@ -19,7 +20,7 @@ export function runningHeader(input: RecordInput) {
     const left = wrapText(layout.fonts, `${input.company.name} · Venting and combustion-air inspection record · ${input.job.reference}`, style, layout.width - rw - 20)[0] ?? "";
     drawLine(page, layout.fonts, left, layout.left, y, style);
     drawAligned(page, layout.fonts, right, layout.left, layout.width, y, { ...style, weight: "bold", color: COLOURS.ink }, "right");
-    page.drawLine({ start: { x: layout.left, y: y - 5 }, end: { x: layout.right, y: y - 5 }, thickness: 0.5, color: COLOURS.rule });
+    line(page, layout.left, y - 5, layout.right, y - 5, COLOURS.rule, 0.5);
     return 14;
   };
 }
@@ -34,7 +35,7 @@ export function drawFooters(pages: readonly PDFPage[], fonts: DocumentFonts, inp
   const total = pages.length;
   pages.forEach((page, i) => {
     const ruleY = MARGIN.bottom - 16;
-    page.drawLine({ start: { x: left, y: ruleY }, end: { x: left + width, y: ruleY }, thickness: 0.6, color: COLOURS.rule });
+    line(page, left, ruleY, left + width, ruleY, COLOURS.rule, 0.6);
     let y = ruleY - 9.5;
     drawLine(page, fonts, `Record ${input.recordNumber} · Revision ${input.revision} · Verification code ${input.verificationCode}`, left, y, meta);
     drawAligned(page, fonts, `Page ${i + 1} of ${total}`, left, width, y, { ...meta, weight: "bold", color: COLOURS.ink }, "right");

@@ -2,6 +2,7 @@ import type { PDFDocument, PDFPage } from "pdf-lib";
 import type { DocumentFonts } from "./fonts";
 import { drawLine, wrapText, type TextStyle } from "./text";
 import { COLOURS, CONTENT_WIDTH, MARGIN, PAGE, SIZE } from "./theme";
+import { line } from "./draw";
 
 /** Line height for a font size. */
 export const leading = (size: number): number => size * 1.32;
@@ -84,7 +85,7 @@ export class Layout {
     drawLine(this.page, this.fonts, num, this.left, this.y - SIZE.heading, { ...style, color: COLOURS.accent });
     drawLine(this.page, this.fonts, text, this.left + 18, this.y - SIZE.heading, style);
     this.y -= SIZE.heading + 6;
-    this.page.drawLine({ start: { x: this.left, y: this.y }, end: { x: this.right, y: this.y }, thickness: 1.2, color: COLOURS.accent });
+    line(this.page, this.left, this.y, this.right, this.y, COLOURS.accent, 1.2);
     this.y -= 10;
   }
 

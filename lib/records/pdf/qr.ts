@@ -1,7 +1,8 @@
 import type { PDFPage, RGB } from "pdf-lib";
 import QRCode from "qrcode";
+import { paint, rect } from "./draw";
 
-/** The dark modules of a QR code as one SVG path in module units (runs of a row merged). */
+/** The dark modules of a QR code as PDF rectangles in module units (runs of a row merged), y down. */
 export function qrPath(text: string): { d: string; size: number } {
   const { modules } = QRCode.create(text, { errorCorrectionLevel: "M" });
   const n = modules.size;
@@ -15,10 +16,10 @@ export function qrPath(text: string): { d: string; size: number } {
       }
       const start = col;
       while (col < n && modules.get(row, col)) col++;
-      parts.push(`M${start} ${row}h${col - start}v1h${start - col}z`);
+      parts.push(`${start} ${row} ${col - start} 1 re`);
     }
   }
-  return { d: parts.join(""), size: n };
+  return { d: parts.join(" "), size: n };
 }
 
 /**
@@ -29,6 +30,6 @@ export function drawQr(page: PDFPage, text: string, x: number, top: number, side
   const { d, size } = qrPath(text);
   const quiet = 4;
   const m = side / (size + 2 * quiet);
-  page.drawRectangle({ x, y: top - side, width: side, height: side, color: paper });
-  page.drawSvgPath(d, { x: x + quiet * m, y: top - quiet * m, scale: m, color: colour });
+  rect(page, x, top - side, side, side, { fill: paper });
+  paint(page, d, { fill: colour }, [m, 0, 0, -m, x + quiet * m, top - quiet * m]);
 }

@@ -1,6 +1,7 @@
 import { PDFDocument } from "pdf-lib";
 import type { RecordInput } from "../record-input";
 import type { RenderContext } from "./context";
+import { finishPages } from "./draw";
 import { DocumentFonts } from "./fonts";
 import { drawFooters, runningHeader } from "./frame";
 import { Layout } from "./layout";
@@ -69,6 +70,7 @@ export async function renderRecordPdf(input: RecordInput): Promise<Uint8Array> {
   drawRulebook(ctx, ++n);
   drawSignOff(ctx, ++n, signatures);
   drawFooters(layout.pages, fonts, input);
+  finishPages(doc, layout.pages);
 
   return doc.save({ useObjectStreams: true });
 }

@@ -1,11 +1,10 @@
-import { LineCapStyle, type PDFPage } from "pdf-lib";
+import type { PDFPage } from "pdf-lib";
 import type { Point, SceneFill, ScenePrimitive, VentRunScene } from "@/lib/drawing";
+import { num, paint, rect } from "./draw";
 import type { DocumentFonts } from "./fonts";
 import { PAPER, PDF_ROLE_COLOURS, type RoleColour } from "./role-colours";
 import { drawLine, textWidth } from "./text";
 import { hex } from "./theme";
-
-const r = (v: number): string => String(Math.round(v * 100) / 100);
 
 function fillColour(fill: SceneFill, c: RoleColour): string | null {
   switch (fill) {
@@ -22,67 +21,88 @@ function fillColour(fill: SceneFill, c: RoleColour): string | null {
   }
 }
 
-const poly = (ps: readonly Point[], close: boolean): string => ps.map((p, i) => `${i === 0 ? "M" : "L"}${r(p.x)} ${r(p.y)}`).join(" ") + (close ? " Z" : "");
+/** Bézier handle length for a quarter circle. */
+const KAPPA = 0.5522847498;
 
-function rectPath(x: number, y: number, w: number, h: number, radius: number): string {
+/**
+ * Paths in scene units with the y axis pointing down, as the scene gives them; `paint` maps
+ * them onto the page with a transform that flips y, so nothing here converts coordinates.
+ */
+const p = (x: number, y: number): string => `${num(x)} ${num(y)}`;
+const poly = (ps: readonly Point[], close: boolean): string => ps.map((q, i) => `${p(q.x, q.y)} ${i === 0 ? "m" : "l"}`).join(" ") + (close ? " h" : "");
+
+function roundedRect(x: number, y: number, w: number, h: number, radius: number): string {
   const k = Math.min(radius, w / 2, h / 2);
-  if (k <= 0) return `M${r(x)} ${r(y)} H${r(x + w)} V${r(y + h)} H${r(x)} Z`;
-  return `M${r(x + k)} ${r(y)} H${r(x + w - k)} A${r(k)} ${r(k)} 0 0 1 ${r(x + w)} ${r(y + k)} V${r(y + h - k)} A${r(k)} ${r(k)} 0 0 1 ${r(x + w - k)} ${r(y + h)} H${r(x + k)} A${r(k)} ${r(k)} 0 0 1 ${r(x)} ${r(y + h - k)} V${r(y + k)} A${r(k)} ${r(k)} 0 0 1 ${r(x + k)} ${r(y)} Z`;
+  if (k <= 0) return `${p(x, y)} ${num(w)} ${num(h)} re`;
+  const c = k * (1 - KAPPA);
+  return [
+    `${p(x + k, y)} m`,
+    `${p(x + w - k, y)} l`,
+    `${p(x + w - c, y)} ${p(x + w, y + c)} ${p(x + w, y + k)} c`,
+    `${p(x + w, y + h - k)} l`,
+    `${p(x + w, y + h - c)} ${p(x + w - c, y + h)} ${p(x + w - k, y + h)} c`,
+    `${p(x + k, y + h)} l`,
+    `${p(x + c, y + h)} ${p(x, y + h - c)} ${p(x, y + h - k)} c`,
+    `${p(x, y + k)} l`,
+    `${p(x, y + c)} ${p(x + c, y)} ${p(x + k, y)} c h`,
+  ].join(" ");
 }
 
-function circlePath(cx: number, cy: number, rad: number): string {
-  return `M${r(cx - rad)} ${r(cy)} A${r(rad)} ${r(rad)} 0 1 0 ${r(cx + rad)} ${r(cy)} A${r(rad)} ${r(rad)} 0 1 0 ${r(cx - rad)} ${r(cy)} Z`;
+function circle(cx: number, cy: number, r: number): string {
+  const k = r * KAPPA;
+  return [
+    `${p(cx + r, cy)} m`,
+    `${p(cx + r, cy + k)} ${p(cx + k, cy + r)} ${p(cx, cy + r)} c`,
+    `${p(cx - k, cy + r)} ${p(cx - r, cy + k)} ${p(cx - r, cy)} c`,
+    `${p(cx - r, cy - k)} ${p(cx - k, cy - r)} ${p(cx, cy - r)} c`,
+    `${p(cx + k, cy - r)} ${p(cx + r, cy - k)} ${p(cx + r, cy)} c h`,
+  ].join(" ");
 }
 
-function pathOf(p: Exclude<ScenePrimitive, { kind: "text" }>): { d: string; fill: SceneFill } {
-  switch (p.kind) {
+function pathOf(q: Exclude<ScenePrimitive, { kind: "text" }>): { d: string; fill: SceneFill } {
+  switch (q.kind) {
     case "line":
-      return { d: `M${r(p.x1)} ${r(p.y1)} L${r(p.x2)} ${r(p.y2)}`, fill: "none" };
+      return { d: `${p(q.x1, q.y1)} m ${p(q.x2, q.y2)} l`, fill: "none" };
     case "polyline":
-      return { d: poly(p.points, false), fill: "none" };
+      return { d: poly(q.points, false), fill: "none" };
     case "polygon":
-      return { d: poly(p.points, true), fill: p.fill };
+      return { d: poly(q.points, true), fill: q.fill };
     case "rect":
-      return { d: rectPath(p.x, p.y, p.width, p.height, p.radius ?? 0), fill: p.fill };
+      return { d: roundedRect(q.x, q.y, q.width, q.height, q.radius ?? 0), fill: q.fill };
     case "circle":
-      return { d: circlePath(p.cx, p.cy, p.r), fill: p.fill };
+      return { d: circle(q.cx, q.cy, q.r), fill: q.fill };
     default:
-      return p satisfies never;
+      return q satisfies never;
   }
 }
 
 /**
  * Draws a vent-run scene as vector graphics with its top-left corner at (x, top), `scale` points
- * per scene unit. The scene's y axis points down; `drawSvgPath` flips it, and text positions are
- * flipped here. Line widths and dashes are given in scene units and scale with the drawing.
+ * per scene unit. The scene's y axis points down: shapes are drawn through a transform that
+ * flips it, and text positions are flipped here. Line widths and dashes are in scene units and
+ * scale with the drawing.
  */
 export function drawScene(page: PDFPage, fonts: DocumentFonts, scene: VentRunScene, x: number, top: number, scale: number): void {
-  page.drawRectangle({ x, y: top - scene.height * scale, width: scene.width * scale, height: scene.height * scale, color: hex(PAPER) });
-  for (const p of scene.primitives) {
-    const c: RoleColour = PDF_ROLE_COLOURS[p.role];
-    if (p.kind === "text") {
-      const size = p.size * scale;
-      const style = { weight: p.weight === "bold" ? "bold" : "regular", size, color: hex(c.text ?? c.stroke) } as const;
-      const w = textWidth(fonts, p.text, style);
-      const left = x + p.x * scale - (p.anchor === "middle" ? w / 2 : p.anchor === "end" ? w : 0);
-      drawLine(page, fonts, p.text, left, top - p.y * scale, style);
+  rect(page, x, top - scene.height * scale, scene.width * scale, scene.height * scale, { fill: hex(PAPER) });
+  const flip = [scale, 0, 0, -scale, x, top] as const;
+  for (const q of scene.primitives) {
+    const c: RoleColour = PDF_ROLE_COLOURS[q.role];
+    if (q.kind === "text") {
+      const size = q.size * scale;
+      const style = { weight: q.weight === "bold" ? "bold" : "regular", size, color: hex(c.text ?? c.stroke) } as const;
+      const w = textWidth(fonts, q.text, style);
+      const left = x + q.x * scale - (q.anchor === "middle" ? w / 2 : q.anchor === "end" ? w : 0);
+      drawLine(page, fonts, q.text, left, top - q.y * scale, style);
       continue;
     }
-    const { d, fill } = pathOf(p);
+    const { d, fill } = pathOf(q);
     const fc = fillColour(fill, c);
-    const stroked = p.strokeWidth > 0;
-    if (!fc && !stroked) continue;
-    page.drawSvgPath(d, {
-      x,
-      y: top,
-      scale,
-      color: fc ? hex(fc) : undefined,
-      borderColor: stroked ? hex(c.stroke) : undefined,
-      borderWidth: stroked ? p.strokeWidth : undefined,
-      borderDashArray: p.dash ? [...p.dash] : undefined,
-      borderLineCap: LineCapStyle.Round,
-      opacity: c.opacity,
-      borderOpacity: c.opacity,
-    });
+    const stroked = q.strokeWidth > 0;
+    paint(
+      page,
+      d,
+      { fill: fc ? hex(fc) : undefined, stroke: stroked ? hex(c.stroke) : undefined, lineWidth: q.strokeWidth, dash: q.dash, round: true, opacity: c.opacity },
+      flip,
+    );
   }
 }

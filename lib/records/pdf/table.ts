@@ -3,6 +3,7 @@ import type { Weight } from "./fonts";
 import { leading, type Layout } from "./layout";
 import { drawAligned, textWidth, wrapText, type TextStyle } from "./text";
 import { COLOURS, SIZE } from "./theme";
+import { rect, line } from "./draw";
 
 export interface Column {
   readonly header: string;
@@ -97,8 +98,8 @@ export function drawTable(layout: Layout, columns: readonly Column[], rows: read
     }
     if (!showHeader) return;
     const top = layout.y;
-    layout.page.drawRectangle({ x: layout.left, y: top - headerH, width: layout.width, height: headerH, color: COLOURS.band });
-    layout.page.drawLine({ start: { x: layout.left, y: top - headerH }, end: { x: layout.right, y: top - headerH }, thickness: 0.8, color: COLOURS.rule });
+    rect(layout.page, layout.left, top - headerH, layout.width, headerH, { fill: COLOURS.band });
+    line(layout.page, layout.left, top - headerH, layout.right, top - headerH, COLOURS.rule, 0.8);
     columns.forEach((c, i) => {
       const lines = headerLines[i] ?? [];
       lines.forEach((t, j) => {
@@ -161,9 +162,9 @@ export function drawTable(layout: Layout, columns: readonly Column[], rows: read
       }
       const h = Math.max(...take.map(sum)) + 2 * PAD_Y;
       const top = layout.y;
-      if (zebra && rowIndex % 2 === 1) layout.page.drawRectangle({ x: layout.left, y: top - h, width: layout.width, height: h, color: COLOURS.zebra });
+      if (zebra && rowIndex % 2 === 1) rect(layout.page, layout.left, top - h, layout.width, h, { fill: COLOURS.zebra });
       const mark = opts.rowMark?.(rowIndex) ?? null;
-      if (mark) layout.page.drawRectangle({ x: layout.left, y: top - h, width: 2.2, height: h, color: mark });
+      if (mark) rect(layout.page, layout.left, top - h, 2.2, h, { fill: mark });
       take.forEach((ls, i) => {
         const col = columns[i];
         if (!col) return;
@@ -173,7 +174,7 @@ export function drawTable(layout: Layout, columns: readonly Column[], rows: read
           const x = (xs[i] ?? 0) + PAD_X;
           if (l.badge) {
             const w = textWidth(layout.fonts, l.text, l.style) + 6;
-            layout.page.drawRectangle({ x, y: base - 2.2, width: w, height: l.style.size + 3, color: l.badge });
+            rect(layout.page, x, base - 2.2, w, l.style.size + 3, { fill: l.badge });
             drawAligned(layout.page, layout.fonts, l.text, x + 3, w, base, l.style, "left");
           } else {
             drawAligned(layout.page, layout.fonts, l.text, x, col.width - 2 * PAD_X, base, l.style, col.align ?? "left");
@@ -182,7 +183,7 @@ export function drawTable(layout: Layout, columns: readonly Column[], rows: read
         }
       });
       layout.y -= h;
-      layout.page.drawLine({ start: { x: layout.left, y: layout.y }, end: { x: layout.right, y: layout.y }, thickness: 0.4, color: COLOURS.hairline });
+      line(layout.page, layout.left, layout.y, layout.right, layout.y, COLOURS.hairline, 0.4);
       fresh = false;
       if (last) break;
       pending = pending.map((ls, i) => ls.slice(take[i]?.length ?? 0));

@@ -1,4 +1,5 @@
-import { beginText, endText, moveText, setFillingColor, setFontAndSize, showText, type PDFFont, type PDFName, type PDFPage, type RGB } from "pdf-lib";
+import type { PDFPage, RGB } from "pdf-lib";
+import { text as drawRun } from "./draw";
 import type { DocumentFonts, Weight } from "./fonts";
 
 /** How a piece of text is set. */
@@ -19,33 +20,11 @@ export function textWidth(fonts: DocumentFonts, text: string, style: Pick<TextSt
   return fonts.widthEm(text, style.weight) * style.size;
 }
 
-const fontKeys = new WeakMap<PDFPage, Map<PDFFont, PDFName>>();
-
-/**
- * The page's resource name of a font, added once per page. (pdf-lib's `drawText` with a `font`
- * option adds a new resource entry on every call, which grows each page's font dictionary and
- * makes a long record slow to render.)
- */
-function fontKey(page: PDFPage, font: PDFFont): PDFName {
-  let keys = fontKeys.get(page);
-  if (!keys) fontKeys.set(page, (keys = new Map()));
-  let key = keys.get(font);
-  if (!key) {
-    key = page.node.newFontDictionary(font.name, font.ref);
-    keys.set(font, key);
-  }
-  return key;
-}
-
-const n2 = (v: number): number => Math.round(v * 100) / 100;
-
 /** Draws one line of text with its left end at x and its baseline at y (PDF coordinates). */
 export function drawLine(page: PDFPage, fonts: DocumentFonts, text: string, x: number, y: number, style: TextStyle): void {
   let cx = x;
   for (const run of fonts.runs(text, style.weight)) {
-    if (run.text) {
-      page.pushOperators(beginText(), setFontAndSize(fontKey(page, run.font), style.size), setFillingColor(style.color), moveText(n2(cx), n2(y)), showText(run.font.encodeText(run.text)), endText());
-    }
+    if (run.text) drawRun(page, run.font, style.size, style.color, cx, y, run.text);
     cx += run.widthEm * style.size;
   }
 }

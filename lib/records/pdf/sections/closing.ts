@@ -6,6 +6,7 @@ import { leading } from "../layout";
 import { drawTable, type Cell } from "../table";
 import { drawAligned, drawLine, wrapText, type TextStyle } from "../text";
 import { COLOURS, SIZE } from "../theme";
+import { image, line, rect } from "../draw";
 
 const body: TextStyle = { weight: "regular", size: SIZE.body, color: COLOURS.body };
 const muted: TextStyle = { weight: "regular", size: SIZE.small, color: COLOURS.muted };
@@ -41,7 +42,7 @@ export function drawPhotos(ctx: RenderContext, number: number): void {
   }
   const gap = 14;
   const cellW = (layout.width - gap) / 2;
-  const frameH = Math.round(cellW * 0.72);
+  const frameH = Math.round(cellW * 0.66);
   const capBold: TextStyle = { weight: "bold", size: SIZE.small, color: COLOURS.ink };
   for (let i = 0; i < input.photos.length; i += 2) {
     const pair = [0, 1].map((k) => i + k).filter((k) => k < input.photos.length);
@@ -59,12 +60,12 @@ export function drawPhotos(ctx: RenderContext, number: number): void {
     pair.forEach((k, j) => {
       const x = layout.left + j * (cellW + gap);
       const img: PDFImage | undefined = photos[k];
-      layout.page.drawRectangle({ x, y: top - frameH, width: cellW, height: frameH, color: COLOURS.band });
+      rect(layout.page, x, top - frameH, cellW, frameH, { fill: COLOURS.band });
       if (img) {
         const s = Math.min(cellW / img.width, frameH / img.height);
         const w = img.width * s;
         const h = img.height * s;
-        layout.page.drawImage(img, { x: x + (cellW - w) / 2, y: top - frameH + (frameH - h) / 2, width: w, height: h });
+        image(layout.page, img, x + (cellW - w) / 2, top - frameH + (frameH - h) / 2, w, h);
       }
       let y = top - frameH - 6;
       const cap = captions[j]!;
@@ -84,7 +85,7 @@ export function drawPhotos(ctx: RenderContext, number: number): void {
 export function drawRulebook(ctx: RenderContext, number: number): void {
   const { layout, input } = ctx;
   const rb = input.rulebook;
-  layout.heading(number, "Rulebook", 80);
+  layout.heading(number, "Rulebook", 160);
   const kw = 130;
   const rows: Cell[][] = [
     ["Name", rb.name],
@@ -141,19 +142,19 @@ export function drawSignOff(ctx: RenderContext, number: number, signatures: { in
   people.forEach((p, j) => {
     const x = layout.left + j * (w + gap);
     const page = layout.page;
-    page.drawRectangle({ x, y: top - boxH, width: w, height: boxH, borderColor: COLOURS.rule, borderWidth: 0.8 });
-    page.drawRectangle({ x, y: top - 20, width: w, height: 20, color: COLOURS.band });
+    rect(page, x, top - boxH, w, boxH, { stroke: COLOURS.rule, lineWidth: 0.8 });
+    rect(page, x, top - 20, w, 20, { fill: COLOURS.band });
     drawLine(page, ctx.fonts, p.role.toUpperCase(), x + 10, top - 13.5, { weight: "bold", size: SIZE.small, color: COLOURS.accent });
     const sigTop = top - 28;
     const sigH = 62;
     const sigW = w - 20;
     if (p.img) {
       const s = Math.min(sigW / p.img.width, sigH / p.img.height);
-      page.drawImage(p.img, { x: x + 10, y: sigTop - sigH + (sigH - p.img.height * s) / 2, width: p.img.width * s, height: p.img.height * s });
+      image(page, p.img, x + 10, sigTop - sigH + (sigH - p.img.height * s) / 2, p.img.width * s, p.img.height * s);
     } else {
       drawAligned(page, ctx.fonts, "No drawn signature: typed name only", x + 10, sigW, sigTop - sigH / 2, muted, "center");
     }
-    page.drawLine({ start: { x: x + 10, y: sigTop - sigH - 2 }, end: { x: x + w - 10, y: sigTop - sigH - 2 }, thickness: 0.6, color: COLOURS.muted });
+    line(page, x + 10, sigTop - sigH - 2, x + w - 10, sigTop - sigH - 2, COLOURS.muted, 0.6);
     let y = sigTop - sigH - 8;
     for (const l of wrapText(ctx.fonts, p.who.signedName || "name not recorded", strong, sigW).slice(0, 2)) {
       drawLine(page, ctx.fonts, l, x + 10, y - strong.size, strong);

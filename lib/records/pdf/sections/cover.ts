@@ -6,6 +6,7 @@ import { leading } from "../layout";
 import { drawQr } from "../qr";
 import { drawAligned, drawLine, textWidth, wrapText, type TextStyle } from "../text";
 import { COLOURS, SIZE } from "../theme";
+import { line, num, paint, rect, rectPath } from "../draw";
 
 export const RECORD_TITLE = "Venting and combustion-air inspection record";
 
@@ -54,7 +55,7 @@ export function drawCover(ctx: RenderContext): void {
   const infoLines = [...wrapText(fonts, rev, rs, recordW - 20), ...wrapText(fonts, approved, rs, recordW - 20)];
   const boxTop = layout.y;
   const boxH = 8 + leading(SIZE.footer) + 1 + 18 + infoLines.length * leading(SIZE.small) + 6;
-  page.drawRectangle({ x: rx, y: boxTop - boxH, width: recordW, height: boxH, borderColor: COLOURS.rule, borderWidth: 0.8, color: COLOURS.band });
+  rect(page, rx, boxTop - boxH, recordW, boxH, { fill: COLOURS.band, stroke: COLOURS.rule, lineWidth: 0.8 });
   let yr = boxTop - 8;
   drawLine(page, fonts, "RECORD", rx + 10, yr - SIZE.footer, { weight: "bold", size: SIZE.footer, color: COLOURS.accent });
   yr -= leading(SIZE.footer) + 1;
@@ -67,7 +68,7 @@ export function drawCover(ctx: RenderContext): void {
   yr -= 6;
 
   layout.y = Math.min(yl, yr) - 8;
-  page.drawLine({ start: { x: layout.left, y: layout.y }, end: { x: layout.right, y: layout.y }, thickness: 2, color: COLOURS.accent });
+  line(page, layout.left, layout.y, layout.right, layout.y, COLOURS.accent, 2);
   layout.y -= 16;
 
   // Title.
@@ -91,7 +92,7 @@ export function drawCover(ctx: RenderContext): void {
   yd = field(ctx, "Record issued", utcDateTime(input.generatedAt), layout.left, yd, detailsW, lw);
 
   const vx = layout.right - verifyW;
-  page.drawRectangle({ x: vx, y: top - 4 - qrSide - 64, width: verifyW, height: qrSide + 68, borderColor: COLOURS.rule, borderWidth: 0.8 });
+  rect(page, vx, top - 4 - qrSide - 64, verifyW, qrSide + 68, { stroke: COLOURS.rule, lineWidth: 0.8 });
   drawQr(page, input.verifyUrl, vx + (verifyW - qrSide) / 2, top - 4, qrSide, COLOURS.ink, COLOURS.white);
   let yv = top - 4 - qrSide - 2;
   const vl: TextStyle = { weight: "regular", size: SIZE.footer, color: COLOURS.muted };
@@ -123,8 +124,8 @@ function drawSummary(ctx: RenderContext): void {
   order.forEach((status, i) => {
     const x = layout.left + i * (w + gap);
     const count = input.summary.counts[status] ?? 0;
-    page.drawRectangle({ x, y: layout.y - h, width: w, height: h, color: COLOURS.zebra, borderColor: COLOURS.hairline, borderWidth: 0.6 });
-    page.drawRectangle({ x, y: layout.y - h, width: 3.5, height: h, color: STATUS_COLOURS[status] });
+    rect(page, x, layout.y - h, w, h, { fill: COLOURS.zebra, stroke: COLOURS.hairline, lineWidth: 0.6 });
+    rect(page, x, layout.y - h, 3.5, h, { fill: STATUS_COLOURS[status] });
     const num = String(count);
     drawLine(page, fonts, num, x + 12, layout.y - 22, { weight: "bold", size: 18, color: STATUS_COLOURS[status] });
     const nx = x + 12 + textWidth(fonts, num, { weight: "bold", size: 18 }) + 8;
@@ -155,12 +156,13 @@ export function drawCaution(ctx: RenderContext): void {
   layout.ensure(h + 4);
   const page = layout.page;
   const top = layout.y;
-  page.drawRectangle({ x: layout.left, y: top - h, width: layout.width, height: h, color: COLOURS.cautionFill, borderColor: COLOURS.cautionBorder, borderWidth: 1.6 });
-  page.drawRectangle({ x: layout.left, y: top - h, width: 6, height: h, color: COLOURS.cautionBorder });
+  rect(page, layout.left, top - h, layout.width, h, { fill: COLOURS.cautionFill, stroke: COLOURS.cautionBorder, lineWidth: 1.6 });
+  rect(page, layout.left, top - h, 6, h, { fill: COLOURS.cautionBorder });
   const x = layout.left + 6 + pad;
   // A warning triangle drawn as a path, so it needs no glyph.
-  page.drawSvgPath("M6 0 L12 10.5 L0 10.5 Z", { x, y: top - pad + 0.5, color: COLOURS.cautionBorder });
-  page.drawSvgPath("M5.3 3.2 H6.7 V7.2 H5.3 Z M5.3 8 H6.7 V9.4 H5.3 Z", { x, y: top - pad + 0.5, color: COLOURS.cautionFill });
+  const ty = top - pad + 0.5;
+  paint(page, `${num(x + 6)} ${num(ty)} m ${num(x + 12)} ${num(ty - 10.5)} l ${num(x)} ${num(ty - 10.5)} l h`, { fill: COLOURS.cautionBorder });
+  paint(page, `${rectPath(x + 5.3, ty - 7.2, 1.4, 4)} ${rectPath(x + 5.3, ty - 9.4, 1.4, 1.4)}`, { fill: COLOURS.cautionFill });
   drawLine(page, fonts, CAUTION_TITLE, x + 18, top - pad - 9, titleStyle);
   let y = top - pad - 10.5 - 8;
   for (const b of blocks) {

@@ -24,6 +24,7 @@ function checkCell(ctx: RenderContext, f: InspectionFinding): Cell {
   const where = targetLabel(ctx.input, f);
   blocks.push({ text: where ? `${f.title} · ${where}` : f.title, weight: "bold", color: COLOURS.ink });
   blocks.push({ text: f.message, gapBefore: 1 });
+  blocks.push({ text: `Source: ${f.citation ?? "no rulebook value"}`, size: SIZE.footer, color: COLOURS.muted, gapBefore: 1.5 });
   if (f.safety && f.status !== "pass") blocks.push({ text: SAFETY_WORDS[f.safety], weight: "bold", color: COLOURS.fail, gapBefore: 2 });
   const j = f.status === "fail" || f.status === "needs-info" ? justificationFor(ctx.input, f) : null;
   if (j) {
@@ -36,18 +37,17 @@ function checkCell(ctx: RenderContext, f: InspectionFinding): Cell {
 /** Findings grouped by area; every finding, passes included, with its status as a word. */
 export function drawFindings(ctx: RenderContext, number: number): void {
   const { layout, input } = ctx;
-  layout.heading(number, "Findings");
+  layout.heading(number, "Findings", 200);
   layout.paragraph(
-    "Each check compares what was measured or confirmed on site with the value the company's rulebook requires, and names the rulebook row (citation) the value came from. Units are given with every number.",
+    "Each check compares what was measured or confirmed on site with the value the company's rulebook requires; its source names the rulebook row (citation) the value came from. Units are given with every number.",
     { weight: "regular", size: SIZE.body, color: COLOURS.muted },
     { after: 6 },
   );
   const cols: Column[] = [
-    { header: "Status", width: 60 },
-    { header: "Check and result", width: 210 },
-    { header: "Measured", width: 58 },
-    { header: "Required", width: 64 },
-    { header: "Citation", width: layout.width - 60 - 210 - 58 - 64 },
+    { header: "Status", width: 58 },
+    { header: "Check, result and source (citation)", width: 342 },
+    { header: "Measured", width: 62 },
+    { header: "Required", width: layout.width - 58 - 342 - 62 },
   ];
   for (const area of AREAS) {
     const fs = input.findings.filter((f) => areaOf(f) === area.key);
@@ -57,7 +57,6 @@ export function drawFindings(ctx: RenderContext, number: number): void {
       checkCell(ctx, f),
       quantity(f.measured),
       requirement(f.required),
-      [{ text: f.citation ?? "No rulebook value", size: SIZE.footer, color: COLOURS.muted }],
     ]);
     drawTable(layout, cols, rows, { title: `${area.title} — ${countLine(fs)}`, caption: `Findings: ${area.title.toLowerCase()}`, rowMark: (i) => STATUS_COLOURS[fs[i]?.status ?? "pass"] });
   }

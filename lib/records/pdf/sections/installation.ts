@@ -16,6 +16,7 @@ import { drawScene } from "../scene";
 import { drawTable, type Cell, type CellBlock, type Column } from "../table";
 import { COLOURS, SIZE } from "../theme";
 import type { TextStyle } from "../text";
+import { rect } from "../draw";
 
 /** Connector materials in the few letters a narrow column holds. */
 const SHORT_MATERIAL = { single_wall: "Single-wall", type_b: "Type B" } as const satisfies Record<keyof typeof CONNECTOR_MATERIAL_LABELS, string>;
@@ -98,7 +99,7 @@ export function drawVentRunDrawing(ctx: RenderContext, number: number): void {
   );
   layout.ensure(h + 4);
   const x = layout.left + (layout.width - scene.width * scale) / 2;
-  layout.page.drawRectangle({ x: x - 0.5, y: layout.y - h - 0.5, width: scene.width * scale + 1, height: h + 1, borderColor: COLOURS.hairline, borderWidth: 0.6 });
+  rect(layout.page, x - 0.5, layout.y - h - 0.5, scene.width * scale + 1, h + 1, { stroke: COLOURS.hairline, lineWidth: 0.6 });
   drawScene(layout.page, ctx.fonts, scene, x, layout.y, scale);
   layout.y -= h + 8;
   if (scene.failingParts.length > 0) {
@@ -111,7 +112,7 @@ export function drawVentRunDrawing(ctx: RenderContext, number: number): void {
 export function drawSegments(ctx: RenderContext, number: number): void {
   const { layout, input } = ctx;
   const run = input.data.ventRun;
-  layout.heading(number, "Vent connector, vent and termination", 80);
+  layout.heading(number, "Vent connector, vent and termination", 190);
   const segs = run?.segments ?? [];
   const sizing = new Map((input.sizing.ventRun?.segments ?? []).map((s) => [s.segmentId, s]));
   const several = new Set(segs.map((s) => s.applianceId).filter(Boolean)).size > 1;

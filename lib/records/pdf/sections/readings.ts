@@ -21,7 +21,7 @@ const READING_COLUMNS = (total: number): Column[] => {
 /** Field readings per appliance, with the values worked out from them. */
 export function drawReadings(ctx: RenderContext, number: number): void {
   const { layout, input } = ctx;
-  layout.heading(number, "Readings", 80);
+  layout.heading(number, "Readings", 190);
   const entries = input.data.readings;
   if (entries.length === 0) {
     layout.paragraph("No readings were entered.", body);
@@ -79,7 +79,7 @@ const ANSWERS = { yes: "Yes", no: "No", na: "N/A" } as const;
 
 export function drawSiteChecks(ctx: RenderContext, number: number): void {
   const { layout, input } = ctx;
-  layout.heading(number, "Site checks", 60);
+  layout.heading(number, "Site checks", 190);
   if (input.siteChecks.length === 0) {
     layout.paragraph("The company's site-check list had no item for this job.", body);
     return;
