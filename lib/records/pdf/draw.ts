@@ -36,7 +36,15 @@ export function num(v: number): string {
   return Object.is(r, -0) ? "0" : String(r);
 }
 
-const colour3 = (c: RGB): string => `${num3(c.red)} ${num3(c.green)} ${num3(c.blue)}`;
+const colourText = new WeakMap<RGB, string>();
+function colour3(c: RGB): string {
+  let s = colourText.get(c);
+  if (s === undefined) {
+    s = `${num3(c.red)} ${num3(c.green)} ${num3(c.blue)}`;
+    colourText.set(c, s);
+  }
+  return s;
+}
 const num3 = (v: number): string => String(Math.round(v * 1000) / 1000);
 
 export interface ShapeStyle {
@@ -140,7 +148,7 @@ export function finishPages(doc: PDFDocument, pages: readonly PDFPage[]): void {
   for (const page of pages) {
     const c = contents.get(page);
     if (!c) continue;
-    const bytes = zlib.deflateSync(Buffer.from(c.parts.join(""), "latin1"), { level: 6 });
+    const bytes = zlib.deflateSync(Buffer.from(c.parts.join(""), "latin1"), { level: 4 });
     const stream = doc.context.stream(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), { Filter: "FlateDecode" });
     page.node.addContentStream(doc.context.register(stream));
     contents.delete(page);

@@ -141,6 +141,7 @@ export interface Run {
 }
 
 const REPLACEMENT = 0x3f; // "?"
+const ASCII = /^[\x20-\x7e]*$/;
 
 /**
  * The fonts embedded in one document. The fallback faces are embedded only when a text needs
@@ -215,6 +216,8 @@ export class DocumentFonts {
 
   /** Splits a single-line text into runs of one font each, replacing characters no face has. */
   runs(text: string, weight: Weight): Run[] {
+    // Printable ASCII is always in the primary face: one run.
+    if (ASCII.test(text)) return [{ text, font: this.embedded.get(weight) as PDFFont, widthEm: this.widthEm(text, weight) }];
     const out: Run[] = [];
     let cur = "";
     let curKey: FaceKey | null = null;

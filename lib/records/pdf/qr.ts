@@ -3,7 +3,11 @@ import QRCode from "qrcode";
 import { paint, rect } from "./draw";
 
 /** The dark modules of a QR code as PDF rectangles in module units (runs of a row merged), y down. */
+const recent = new Map<string, { d: string; size: number }>();
+
 export function qrPath(text: string): { d: string; size: number } {
+  const have = recent.get(text);
+  if (have) return have;
   const { modules } = QRCode.create(text, { errorCorrectionLevel: "M" });
   const n = modules.size;
   const parts: string[] = [];
@@ -19,7 +23,11 @@ export function qrPath(text: string): { d: string; size: number } {
       parts.push(`${start} ${row} ${col - start} 1 re`);
     }
   }
-  return { d: parts.join(" "), size: n };
+  const out = { d: parts.join(" "), size: n };
+  // A record is often rendered twice in a row (preview, then the stored copy): keep a few.
+  if (recent.size >= 16) recent.delete(recent.keys().next().value as string);
+  recent.set(text, out);
+  return out;
 }
 
 /**
