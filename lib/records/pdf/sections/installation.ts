@@ -121,15 +121,15 @@ export function drawSegments(ctx: RenderContext, number: number): void {
   } else {
     const columns: Column[] = [
       { header: "#", width: 18 },
-      { header: "Material", width: 46 },
-      { header: "Dia.", width: 30, align: "right" },
+      { header: "Material", width: 50 },
+      { header: "Dia.", width: 28, align: "right" },
       { header: "Length", width: 32, align: "right" },
       { header: "Run", width: 46 },
       { header: "Rise", width: 50, align: "right" },
-      { header: "Turns 45° / 90°", width: 34, align: "center" },
+      { header: "Turns 45° / 90°", width: 32, align: "center" },
       { header: "Clearance", width: 45, align: "right" },
-      { header: "Supports", width: 38, align: "center" },
-      { header: "Fasteners per joint (joints)", width: 46, align: "center" },
+      { header: "Supports", width: 42, align: "center" },
+      { header: "Fasteners per joint (joints)", width: 44, align: "center" },
       { header: "Locked", width: 34 },
       { header: "Passes through", width: 50 },
     ];
@@ -150,7 +150,7 @@ export function drawSegments(ctx: RenderContext, number: number): void {
       const open = mine.filter((f) => f.status !== "pass");
       const passed = mine.length - open.length;
       const checks: Cell = [
-        ...open.map((f): CellBlock => ({ text: `${STATUS_WORDS[f.status]}: ${f.title}`, weight: "bold", color: STATUS_COLOURS[f.status] })),
+        ...open.map((f): CellBlock => ({ text: `${STATUS_WORDS[f.status]}: ${f.title}`, color: STATUS_COLOURS[f.status] })),
         ...(passed > 0 ? [{ text: `${passed} PASS`, color: COLOURS.pass }] : []),
       ];
       return [
