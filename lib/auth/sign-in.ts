@@ -35,6 +35,18 @@ export function retryAfterSeconds(failures: string[], limit: number, nowMs: numb
 const blockedUntilMs = new Map<string, number>();
 const MAX_REMEMBERED_BLOCKS = 10_000;
 
+/**
+ * A refused attempt is answered after this pause. Waiting costs no CPU, and it caps what each
+ * connection of a flood can take from the one event loop (about 2 refusals a second instead of
+ * hundreds), so other users' requests keep their share while the limits hold.
+ */
+export const SIGN_IN_REFUSAL_DELAY_MS = 500;
+
+async function refuse(waitSeconds: number): Promise<never> {
+  await new Promise((resolve) => setTimeout(resolve, SIGN_IN_REFUSAL_DELAY_MS));
+  throw rateLimited(waitSeconds);
+}
+
 function rememberBlock(key: string, waitSeconds: number, nowMs: number): void {
   if (waitSeconds <= 0) return;
   if (blockedUntilMs.size >= MAX_REMEMBERED_BLOCKS) {
@@ -60,7 +72,7 @@ export async function signIn(args: { email: string; password: string; client: st
   // for the hash worker.
   const keys = [`e:${args.email}`, `c:${args.client}`];
   const known = Math.max(...keys.map((key) => Math.ceil(((blockedUntilMs.get(key) ?? 0) - nowMs) / 1000)));
-  if (known > 0) throw rateLimited(known);
+  if (known > 0) return refuse(known);
   const waitFor = (failures: { emailFailures: string[]; clientFailures: string[] }) => {
     const email = retryAfterSeconds(failures.emailFailures, SIGN_IN_MAX_FAILURES_PER_ACCOUNT, nowMs);
     const client = retryAfterSeconds(failures.clientFailures, SIGN_IN_MAX_FAILURES_PER_CLIENT, nowMs);
@@ -69,9 +81,9 @@ export async function signIn(args: { email: string; password: string; client: st
     return Math.max(email, client);
   };
   const wait = waitFor(await recentFailures({ email: args.email, client: args.client, sinceIso: since }));
-  if (wait > 0) throw rateLimited(wait);
+  if (wait > 0) return refuse(wait);
   const { failures, attemptId } = await reserveLoginAttempt({ email: args.email, client: args.client, sinceIso: since }, (seen) => waitFor(seen) === 0);
-  if (attemptId === null) throw rateLimited(waitFor(failures));
+  if (attemptId === null) return refuse(waitFor(failures));
 
   const credentials = await findCredentialsByEmail(args.email);
   // Always compare (against a dummy hash for unknown e-mails) so both failures take the same time.
