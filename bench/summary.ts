@@ -48,7 +48,7 @@ if (pdf) {
   // Written by bench/pdf.bench.ts; its own fields, shown as they are.
   const median = pdf.medianMs ?? pdf.render?.medianMs ?? pdf.timing?.medianMs;
   const goal = pdf.goalMedianMs ?? pdf.goals?.medianMs ?? 100;
-  const memory = pdf.memory ? `, memory ${JSON.stringify(pdf.memory)}` : pdf.heapUsedMb ? `, heap ${pdf.heapUsedMb} MB` : "";
+  const memory = pdf.peakRssMb !== undefined ? `, p95 ${pdf.p95Ms} ms, peak RSS ${pdf.peakRssMb} MB, heap ${pdf.peakHeapUsedMb} MB` : "";
   rows.push(["pdf: 30 segments, 8 photos", median !== undefined ? `median ${median} ms${memory}` : JSON.stringify(pdf).slice(0, 80), `median < ${goal} ms`, median !== undefined ? median < goal : null]);
 }
 
