@@ -3,14 +3,16 @@
 # database under data/ (only when it is empty), and serves the app at http://localhost:3000.
 set -euo pipefail
 cd "$(dirname "$0")/.."
-export NEXT_TELEMETRY_DISABLED=1 NODE_ENV=production
+export NEXT_TELEMETRY_DISABLED=1
 # The demo is served over plain HTTP (also to a phone on the same network), so its session
 # cookie cannot be Secure. Behind HTTPS, leave COOKIE_SECURE unset: cookies are then Secure
 # and named with the __Host- prefix.
 export COOKIE_SECURE="${COOKIE_SECURE:-false}"
 PORT="${PORT:-3000}"
 
+# Install first without NODE_ENV=production: npm would then leave out the build tools.
 bash scripts/ensure-deps.sh
+export NODE_ENV=production
 echo "[demo] building the production app"
 npx next build > /tmp/flueward-build.log 2>&1 || { tail -40 /tmp/flueward-build.log; exit 1; }
 npx tsx scripts/prepare-db.ts
