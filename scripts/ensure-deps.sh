@@ -6,7 +6,7 @@ cd "$(dirname "$0")/.."
 
 if [[ ! -d node_modules ]] || [[ package-lock.json -nt node_modules/.package-lock.json ]]; then
   echo "[setup] installing npm packages (better-sqlite3 compiles from source: about 2 minutes)"
-  npm ci --no-audit --no-fund
+  npm ci --include=dev --no-audit --no-fund
 fi
 
 if [[ "${1:-}" == "--test" ]]; then
