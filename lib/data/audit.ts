@@ -47,6 +47,20 @@ export async function recordAudit(db: Knex | Knex.Transaction, event: AuditEvent
   });
 }
 
+function toAuditEvent(row: Record<string, unknown>): AuditEvent {
+  return {
+    id: row.id as number,
+    action: row.action as string,
+    entityType: row.entity_type as string,
+    entityId: (row.entity_id as number | null) ?? null,
+    actorName: row.actor_name as string,
+    summary: row.summary as string,
+    before: parseJson(row.before_json as string | null),
+    after: parseJson(row.after_json as string | null),
+    createdAt: row.created_at as string,
+  };
+}
+
 function parseJson(text: string | null): unknown {
   if (text == null) return null;
   try {
@@ -62,17 +76,7 @@ export async function listAuditForEntity(args: { companyId: number; entityType: 
     .where({ company_id: args.companyId, entity_type: args.entityType, entity_id: args.entityId })
     .orderBy("id", "desc")
     .limit(args.limit ?? 100);
-  return rows.map((row) => ({
-    id: row.id,
-    action: row.action,
-    entityType: row.entity_type,
-    entityId: row.entity_id,
-    actorName: row.actor_name,
-    summary: row.summary,
-    before: parseJson(row.before_json),
-    after: parseJson(row.after_json),
-    createdAt: row.created_at,
-  }));
+  return rows.map(toAuditEvent);
 }
 
 /** A job's history: its own events and those of its inspections, newest first. */
@@ -87,15 +91,5 @@ export async function listJobHistory(args: { companyId: number; jobId: number; l
     )
     .orderBy("id", "desc")
     .limit(args.limit ?? 100);
-  return rows.map((row) => ({
-    id: row.id,
-    action: row.action,
-    entityType: row.entity_type,
-    entityId: row.entity_id,
-    actorName: row.actor_name,
-    summary: row.summary,
-    before: parseJson(row.before_json),
-    after: parseJson(row.after_json),
-    createdAt: row.created_at,
-  }));
+  return rows.map(toAuditEvent);
 }

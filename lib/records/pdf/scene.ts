@@ -2,7 +2,7 @@ import type { PDFPage } from "pdf-lib";
 import type { Point, SceneFill, ScenePrimitive, VentRunScene } from "@/lib/drawing";
 import { num, paint, rect } from "./draw";
 import type { DocumentFonts } from "./fonts";
-import { PAPER, PDF_ROLE_COLOURS, type RoleColour } from "./role-colours";
+import { PAPER, ROLE_COLOURS, type RoleColour } from "@/lib/drawing/role-colours";
 import { drawLine, textWidth } from "./text";
 import { hex } from "./theme";
 
@@ -86,7 +86,7 @@ export function drawScene(page: PDFPage, fonts: DocumentFonts, scene: VentRunSce
   rect(page, x, top - scene.height * scale, scene.width * scale, scene.height * scale, { fill: hex(PAPER) });
   const flip = [scale, 0, 0, -scale, x, top] as const;
   for (const q of scene.primitives) {
-    const c: RoleColour = PDF_ROLE_COLOURS[q.role];
+    const c: RoleColour = ROLE_COLOURS[q.role];
     if (q.kind === "text") {
       const size = q.size * scale;
       const style = { weight: q.weight === "bold" ? "bold" : "regular", size, color: hex(c.text ?? c.stroke) } as const;

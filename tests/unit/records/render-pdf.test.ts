@@ -3,10 +3,8 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { ROLE_COLOURS } from "@/components/drawing/vent-run-drawing";
 import { CAUTION_CO, CAUTION_GOVERNS, FOOTER_CAUTION } from "@/lib/records/pdf/caution";
 import { FRAME_INSET } from "@/lib/records/pdf/frame";
-import { PDF_ROLE_COLOURS } from "@/lib/records/pdf/role-colours";
 import { MARGIN } from "@/lib/records/pdf/theme";
 import type { RecordInput } from "@/lib/records/record-input";
 import { renderRecordPdf } from "@/lib/records/render-pdf";
@@ -182,9 +180,5 @@ describe("renderRecordPdf: fonts and rendering", () => {
     const all = squash(text(file));
     expect(all.split(squash("No drawn signature: typed name only")).length - 1).toBe(2);
     expect(all).toContain(squash(input.installer.signedName));
-  });
-
-  test("the drawing's colours match the on-screen drawing's", () => {
-    expect(PDF_ROLE_COLOURS).toEqual(ROLE_COLOURS);
   });
 });

@@ -1,9 +1,8 @@
-import type { SceneRole } from "@/lib/drawing";
+import type { SceneRole } from "./scene-types";
 
 /**
- * The drawing's colours per role, the same values as the on-screen drawing's map in
- * components/drawing/vent-run-drawing.tsx (a unit test keeps the two equal). Kept here so the
- * server-side renderer does not load a React module.
+ * The drawing's colours per role: one map for the on-screen SVG and the PDF record, kept out of
+ * the React component so the server-side renderer does not load React.
  */
 export interface RoleColour {
   readonly stroke: string;
@@ -16,7 +15,7 @@ export const PAPER = "#ffffff";
 const FAIL = "#b3261e";
 const FAIL_SOFT = "#fbe7e5";
 
-export const PDF_ROLE_COLOURS = {
+export const ROLE_COLOURS = {
   appliance: { stroke: "#394851", tint: "#e7ecee" },
   "appliance-fail": { stroke: FAIL, tint: FAIL_SOFT },
   "draft-hood": { stroke: "#394851", tint: "#e7ecee" },
