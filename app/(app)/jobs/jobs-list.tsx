@@ -5,6 +5,7 @@ import { useEffect, useState } from "react";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { JobStatusBadge } from "@/components/jobs/job-status-badge";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
+import { Pager } from "@/components/ui/pager";
 import { apiFetch } from "@/lib/client/api";
 import { JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "@/lib/schemas/job";
 
@@ -171,19 +172,7 @@ export function JobsList() {
               </tbody>
             </table>
           </div>
-          <nav aria-label="Pages" className="flex items-center justify-between gap-2 text-sm">
-            <p className="text-ink-600" aria-live="polite">
-              {query.data.total} job{query.data.total === 1 ? "" : "s"} · page {query.data.page} of {query.data.pageCount}
-            </p>
-            <div className="flex gap-2">
-              <button type="button" className="btn-secondary" disabled={query.data.page <= 1} onClick={() => setPage((p) => Math.max(1, p - 1))}>
-                Previous
-              </button>
-              <button type="button" className="btn-secondary" disabled={query.data.page >= query.data.pageCount} onClick={() => setPage((p) => p + 1)}>
-                Next
-              </button>
-            </div>
-          </nav>
+          <Pager total={query.data.total} page={query.data.page} pageCount={query.data.pageCount} noun="job" onPage={setPage} />
         </>
       )}
     </div>

@@ -5,6 +5,7 @@ import { useEffect, useState } from "react";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { InspectionStatusBadge } from "@/components/inspection/inspection-status-badge";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
+import { Pager } from "@/components/ui/pager";
 import { apiFetch } from "@/lib/client/api";
 import type { InspectionStatus } from "@/lib/data/inspection-access";
 
@@ -138,19 +139,7 @@ export function ReviewQueue() {
               </tbody>
             </table>
           </div>
-          <nav aria-label="Pages" className="flex items-center justify-between text-sm">
-            <p className="text-ink-600">
-              {query.data.total} inspection{query.data.total === 1 ? "" : "s"} · page {query.data.page} of {query.data.pageCount}
-            </p>
-            <div className="flex gap-2">
-              <button type="button" className="btn-secondary" disabled={query.data.page <= 1} onClick={() => setPage((p) => p - 1)}>
-                Previous
-              </button>
-              <button type="button" className="btn-secondary" disabled={query.data.page >= query.data.pageCount} onClick={() => setPage((p) => p + 1)}>
-                Next
-              </button>
-            </div>
-          </nav>
+          <Pager total={query.data.total} page={query.data.page} pageCount={query.data.pageCount} noun="inspection" onPage={setPage} />
         </>
       )}
     </div>
