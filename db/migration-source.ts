@@ -4,6 +4,7 @@ import * as rulebooks from "./migrations/20261201000002_rulebooks";
 import * as inspections from "./migrations/20261201000003_inspections";
 import * as records from "./migrations/20261201000004_records";
 import * as inspectionListIndexes from "./migrations/20261201000005_inspection_list_indexes";
+import * as jobSearchIndex from "./migrations/20261201000006_job_search_index";
 
 /**
  * The migrations as a static list, for runtimes that cannot load .ts files from a folder
@@ -16,6 +17,7 @@ export const MIGRATIONS: Record<string, { up: (knex: Knex) => Promise<void>; dow
   "20261201000003_inspections.ts": inspections,
   "20261201000004_records.ts": records,
   "20261201000005_inspection_list_indexes.ts": inspectionListIndexes,
+  "20261201000006_job_search_index.ts": jobSearchIndex,
 };
 
 export const staticMigrationSource: Knex.MigrationSource<string> = {

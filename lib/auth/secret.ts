@@ -8,7 +8,17 @@ import crypto from "node:crypto";
  * demo) a random one generated once into the git-ignored .secrets/ folder. Never committed.
  * SESSION_SECRET may hold several comma-separated secrets, newest first, to rotate keys.
  */
+let memo: { env: string | undefined; passwords: Record<string, string> } | null = null;
+
 export function sessionPasswords(): Record<string, string> {
+  const env = process.env.SESSION_SECRET;
+  if (memo && memo.env === env) return memo.passwords;
+  const passwords = buildPasswords();
+  memo = { env, passwords };
+  return passwords;
+}
+
+function buildPasswords(): Record<string, string> {
   const fromEnv = process.env.SESSION_SECRET?.split(",").map((s) => s.trim()).filter(Boolean);
   const secrets = fromEnv && fromEnv.length > 0 ? fromEnv : [developmentSecret()];
   for (const secret of secrets) {

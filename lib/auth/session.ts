@@ -2,7 +2,7 @@ import "server-only";
 import { cache } from "react";
 import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
-import { getIronSession, type SessionOptions } from "iron-session";
+import { getIronSession, unsealData, type SessionOptions } from "iron-session";
 import { AppError } from "@/lib/errors";
 import { can, type Permission, type Role } from "./roles";
 import { sessionPasswords } from "./secret";
@@ -40,11 +40,39 @@ export async function getCookieSession() {
   return getIronSession<SessionData>(await cookies(), sessionOptions());
 }
 
+/**
+ * Sealed cookie values already opened, with the session id inside, so a member's every request
+ * does not repeat the key derivation and decryption. Only a cookie that unsealed is kept, keyed by
+ * its exact value, for at most a minute; whether the session is still live is checked against the
+ * sessions table on every request all the same. Bounded: the oldest entries go first.
+ */
+const UNSEALED_COOKIE_TTL_MS = 60_000;
+const UNSEALED_COOKIE_LIMIT = 2_000;
+const unsealedCookies = new Map<string, { sid: string; until: number }>();
+
+async function sessionIdFromCookie(): Promise<string | undefined> {
+  const options = sessionOptions();
+  const sealed = (await cookies()).get(options.cookieName)?.value;
+  if (!sealed) return undefined;
+  const now = Date.now();
+  const known = unsealedCookies.get(sealed);
+  if (known && known.until > now) return known.sid;
+  const data = await unsealData<SessionData>(sealed, { password: options.password, ttl: options.ttl });
+  if (typeof data.sid !== "string" || data.sid.length === 0) {
+    unsealedCookies.delete(sealed);
+    return undefined;
+  }
+  unsealedCookies.delete(sealed);
+  unsealedCookies.set(sealed, { sid: data.sid, until: now + UNSEALED_COOKIE_TTL_MS });
+  if (unsealedCookies.size > UNSEALED_COOKIE_LIMIT) unsealedCookies.delete(unsealedCookies.keys().next().value as string);
+  return data.sid;
+}
+
 /** The signed-in member, or null. Memoised per request. */
 export const getCurrentMember = cache(async (): Promise<Member | null> => {
-  const session = await getCookieSession();
-  if (!session.sid) return null;
-  return findSessionMember(session.sid);
+  const sid = await sessionIdFromCookie();
+  if (!sid) return null;
+  return findSessionMember(sid);
 });
 
 /** For route handlers and server actions: the member, or a 401 error. */

@@ -164,6 +164,8 @@ export async function getInspection(args: { companyId: number; id: number }): Pr
     .leftJoin("users as sup", "sup.id", "i.approved_by")
     .join("rulebook_versions as rv", "rv.id", "i.rulebook_version_id")
     .join("rulebooks as rb", "rb.id", "rv.rulebook_id")
+    // The rulebook's newest version, so the editor can offer to move to it.
+    .leftJoin("rulebook_versions as lv", (on) => on.on("lv.rulebook_id", "rb.id").andOn("lv.version_number", "rb.latest_version_number").andOn("lv.company_id", "i.company_id"))
     .first(
       ...SUMMARY_COLUMNS,
       "i.version",
@@ -181,17 +183,16 @@ export async function getInspection(args: { companyId: number; id: number }): Pr
       "rv.version_number as rv_number",
       "rb.id as rb_id",
       "rb.name as rb_name",
-      "rb.latest_version_number as rb_latest",
+      "lv.id as latest_rv_id",
     );
   if (!row) throw new AppError("not_found", "No such inspection in your company.");
   const rootId = (row.root_inspection_id as number | null) ?? row.id;
-  const [comments, revisions, latest] = await Promise.all([
+  const [comments, revisions] = await Promise.all([
     db("inspection_comments").where({ company_id: args.companyId, inspection_id: args.id }).orderBy("id", "asc").select("*"),
     // Every revision, the first included, carries root_inspection_id (createInspection sets it on
     // the first), so this is one index search. An `or id = ?` here made SQLite walk every one of
     // the company's inspections (5 ms per call at 50,000).
     db("inspections").where({ company_id: args.companyId, root_inspection_id: rootId }).orderBy("revision", "asc").select("id", "revision", "status", "approved_at"),
-    db("rulebook_versions").where({ company_id: args.companyId, rulebook_id: row.rb_id, version_number: row.rb_latest }).first("id"),
   ]);
   const parsedData = inspectionDataSchema.safeParse(parseJson(row.data_json, {}));
   return {
@@ -200,7 +201,7 @@ export async function getInspection(args: { companyId: number; id: number }): Pr
     data: parsedData.success ? parsedData.data : emptyInspectionData(),
     findings: parseJson<InspectionFinding[]>(row.findings_json, []),
     rulebookVersion: { id: row.rv_id, rulebookId: row.rb_id, name: row.rb_name, versionNumber: row.rv_number },
-    latestRulebookVersionId: latest?.id ?? null,
+    latestRulebookVersionId: row.latest_rv_id ?? null,
     installerId: row.installer_id ?? null,
     installerSignedName: row.installer_signed_name ?? null,
     installerSignaturePng: row.installer_signature_png ?? null,
