@@ -14,8 +14,8 @@ import {
   parseAttachmentValue,
   type PhotoJson,
   type PhotoTag,
-  type PhotoUpdateValues,
-} from "@/lib/schemas/photo";
+} from "@/lib/schemas/photo-values";
+import type { PhotoUpdateValues } from "@/lib/schemas/photo";
 
 export interface AttachOption {
   /** `segment:<id>` or `check:<key>`. */

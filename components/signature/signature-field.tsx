@@ -2,9 +2,9 @@
 
 import { useCallback, useEffect, useId, useRef, useState } from "react";
 import SignaturePad, { type PointGroup } from "signature_pad";
-import { SIGNATURE_PNG_MAX_CHARS, type SignatureValue } from "@/lib/schemas/signature";
+import { SIGNATURE_PNG_MAX_CHARS, type SignatureValue } from "@/lib/schemas/signature-values";
 
-export type { SignatureValue } from "@/lib/schemas/signature";
+export type { SignatureValue } from "@/lib/schemas/signature-values";
 
 export interface SignatureFieldProps {
   /** The typed name and the drawing. `signaturePng` is a PNG data URL, or null while the box is empty. */

@@ -7,7 +7,7 @@ import { JobStatusBadge } from "@/components/jobs/job-status-badge";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
 import { apiFetch } from "@/lib/client/api";
-import { JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "@/lib/schemas/job";
+import { JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "@/lib/schemas/job-values";
 
 interface JobRow {
   id: number;
