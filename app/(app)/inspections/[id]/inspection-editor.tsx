@@ -4,6 +4,7 @@ import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
+import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { SafetyNotice } from "@/components/safety-notice";
 import { useAutosave, readLocalDraft, type SaveStatus } from "@/components/inspection/use-autosave";
 import { apiFetch, ApiError } from "@/lib/client/api";
@@ -21,9 +22,6 @@ import { FindingsPanel } from "./findings-panel";
 import { Section } from "./form-bits";
 import { toData, toFormValues, type InspectionFormValues } from "./form-values";
 
-// The photo list fetches its photos after the page has loaded anyway; its code comes in its own
-// chunk so that it does not hold up the rest of the editor.
-const PhotoUploader = dynamic(() => import("@/components/photos/photo-uploader").then((m) => m.PhotoUploader));
 // The vent-run drawing is rendered on the server with the page; the code that redraws it as the
 // fields change arrives in its own chunk, after the form's.
 const VentRunDrawing = dynamic(() => import("@/components/drawing/vent-run-drawing").then((m) => m.VentRunDrawing));
