@@ -1,7 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { headers } from "next/headers";
-import { Providers } from "@/components/providers";
 import "./globals.css";
 
 // Shipped with the app from a registry package: the build downloads nothing.
@@ -29,7 +28,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   return (
     <html lang="en" className={sans.variable}>
       <body className="min-h-screen font-sans">
-        <Providers>{children}</Providers>
+        {children}
       </body>
     </html>
   );

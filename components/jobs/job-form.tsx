@@ -5,6 +5,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQueryClient } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { Field } from "@/components/ui/field";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { JOB_STATUSES, JOB_STATUS_LABELS, jobFormSchema, type JobFormInput, type JobFormValues } from "@/lib/schemas/job";
@@ -21,7 +22,7 @@ export interface AssignableMember {
  * Create or edit a job. The same zod schema checks the fields here and in the route handler;
  * server field errors land beside their fields.
  */
-export function JobForm({
+function JobFormView({
   mode,
   jobId,
   version,
@@ -191,3 +192,5 @@ export function JobForm({
     </form>
   );
 }
+
+export const JobForm = withQueryClient(JobFormView);

@@ -1,4 +1,4 @@
-import { JOB_STATUS_LABELS, type JobStatus } from "@/lib/schemas/job";
+import { JOB_STATUS_LABELS, type JobStatus } from "@/lib/schemas/job-values";
 
 const STYLES = {
   scheduled: "bg-info-soft text-info",

@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useId, useRef, useState, type ChangeEvent } from "react";
 import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { ApiError, apiFetch } from "@/lib/client/api";
 import {
   MAX_CAPTION_LENGTH,
@@ -14,8 +15,8 @@ import {
   parseAttachmentValue,
   type PhotoJson,
   type PhotoTag,
-  type PhotoUpdateValues,
-} from "@/lib/schemas/photo";
+} from "@/lib/schemas/photo-values";
+import type { PhotoUpdateValues } from "@/lib/schemas/photo";
 
 export interface AttachOption {
   /** `segment:<id>` or `check:<key>`. */
@@ -86,7 +87,7 @@ function sendPhoto(
  * Photos of one inspection: take or choose several at once, watch each upload, fix or dismiss
  * the ones refused, then caption, tag and attach each photo. Changes save as they are made.
  */
-export function PhotoUploader({ inspectionId, editable, attachOptions, initialPhotos }: PhotoUploaderProps) {
+function PhotoUploaderView({ inspectionId, editable, attachOptions, initialPhotos }: PhotoUploaderProps) {
   const queryClient = useQueryClient();
   const baseId = useId();
   const query = useQuery({
@@ -463,3 +464,5 @@ function CameraIcon() {
     </svg>
   );
 }
+
+export const PhotoUploader = withQueryClient(PhotoUploaderView);

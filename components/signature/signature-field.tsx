@@ -1,10 +1,11 @@
 "use client";
 
 import { useCallback, useEffect, useId, useRef, useState } from "react";
-import SignaturePad, { type PointGroup } from "signature_pad";
-import { SIGNATURE_PNG_MAX_CHARS, type SignatureValue } from "@/lib/schemas/signature";
+import type SignaturePad from "signature_pad";
+import type { PointGroup } from "signature_pad";
+import { SIGNATURE_PNG_MAX_CHARS, type SignatureValue } from "@/lib/schemas/signature-values";
 
-export type { SignatureValue } from "@/lib/schemas/signature";
+export type { SignatureValue } from "@/lib/schemas/signature-values";
 
 export interface SignatureFieldProps {
   /** The typed name and the drawing. `signaturePng` is a PNG data URL, or null while the box is empty. */
@@ -54,6 +55,8 @@ export function SignatureField({ value, onChange, label = "Signature", statement
   onChangeRef.current = onChange;
 
   const [hasDrawing, setHasDrawing] = useState(value.signaturePng !== null);
+  /** The drawing library loads after the page; the effects that talk to the pad wait for it. */
+  const [padReady, setPadReady] = useState(false);
 
   const exportPng = useCallback((): string | null => {
     const pad = padRef.current;
@@ -111,25 +114,37 @@ export function SignatureField({ value, onChange, label = "Signature", statement
     const canvas = canvasRef.current;
     const wrapper = wrapperRef.current;
     if (!canvas || !wrapper) return;
-    const pad = new SignaturePad(canvas, { penColor: PEN_COLOR, minWidth: 0.8, maxWidth: 2.6 });
-    padRef.current = pad;
-    if (valueRef.current.signaturePng) {
-      imageRef.current = valueRef.current.signaturePng;
-      emittedRef.current = valueRef.current.signaturePng;
-    }
-    fitCanvas();
-    const onEnd = () => emit(exportPng());
-    pad.addEventListener("endStroke", onEnd);
-    const observer = new ResizeObserver(() => fitCanvas());
-    observer.observe(wrapper);
-    window.addEventListener("resize", fitCanvas);
+    let cancelled = false;
+    let teardown: (() => void) | null = null;
+    // The drawing library is fetched on mount rather than with the page's first script.
+    void import("signature_pad").then(({ default: SignaturePadClass }) => {
+      if (cancelled) return;
+      const pad = new SignaturePadClass(canvas, { penColor: PEN_COLOR, minWidth: 0.8, maxWidth: 2.6 });
+      padRef.current = pad;
+      if (valueRef.current.signaturePng) {
+        imageRef.current = valueRef.current.signaturePng;
+        emittedRef.current = valueRef.current.signaturePng;
+      }
+      fitCanvas();
+      const onEnd = () => emit(exportPng());
+      pad.addEventListener("endStroke", onEnd);
+      const observer = new ResizeObserver(() => fitCanvas());
+      observer.observe(wrapper);
+      window.addEventListener("resize", fitCanvas);
+      teardown = () => {
+        observer.disconnect();
+        window.removeEventListener("resize", fitCanvas);
+        pad.removeEventListener("endStroke", onEnd);
+        pad.off();
+        padRef.current = null;
+        sizeRef.current = null;
+      };
+      setPadReady(true);
+    });
     return () => {
-      observer.disconnect();
-      window.removeEventListener("resize", fitCanvas);
-      pad.removeEventListener("endStroke", onEnd);
-      pad.off();
-      padRef.current = null;
-      sizeRef.current = null;
+      cancelled = true;
+      teardown?.();
+      setPadReady(false);
     };
   }, [emit, exportPng, fitCanvas]);
 
@@ -138,7 +153,7 @@ export function SignatureField({ value, onChange, label = "Signature", statement
     if (!pad) return;
     if (disabled) pad.off();
     else pad.on();
-  }, [disabled]);
+  }, [disabled, padReady]);
 
   // A drawing set from outside: null clears the box, another PNG replaces the drawing.
   useEffect(() => {
@@ -151,7 +166,7 @@ export function SignatureField({ value, onChange, label = "Signature", statement
     setHasDrawing(incoming !== null);
     const size = sizeRef.current;
     if (incoming && size) void pad.fromDataURL(incoming, { width: size.width, height: size.height });
-  }, [value.signaturePng]);
+  }, [value.signaturePng, padReady]);
 
   function clear() {
     padRef.current?.clear();

@@ -2,6 +2,9 @@ import { z } from "zod";
 import { idSchema } from "./common";
 import { inspectionDataSchema } from "@/lib/inspections/data";
 import { signatureSchema } from "@/lib/schemas/signature";
+import { INSPECTION_QUEUE_SORTS, REVIEW_SECTIONS } from "./inspection-values";
+
+export { INSPECTION_QUEUE_SORTS, REVIEW_SECTIONS, REVIEW_SECTION_LABELS, type ReviewSection } from "./inspection-values";
 
 export const inspectionCreateSchema = z.object({
   /** Copy the appliances of this earlier inspection of the same job. */
@@ -21,20 +24,6 @@ export const submitSchema = z.object({
   signature: signatureSchema,
 });
 
-export const REVIEW_SECTIONS = ["general", "appliances", "ventRun", "airSpace", "readings", "siteChecks", "photos", "justifications"] as const;
-export type ReviewSection = (typeof REVIEW_SECTIONS)[number];
-
-export const REVIEW_SECTION_LABELS = {
-  general: "General",
-  appliances: "Appliances",
-  ventRun: "Vent run",
-  airSpace: "Combustion air",
-  readings: "Readings",
-  siteChecks: "Site checks",
-  photos: "Photos",
-  justifications: "Justifications",
-} as const satisfies Record<ReviewSection, string>;
-
 export const commentSchema = z.object({
   section: z.enum(REVIEW_SECTIONS, { error: "Choose the section the comment is about." }),
   body: z.string().trim().min(1, "Write the comment.").max(2000, "Keep the comment under 2,000 characters."),
@@ -49,7 +38,6 @@ export const approveSchema = z.object({
   password: z.string().min(1, "Enter your password to confirm the approval.").max(1000),
 });
 
-export const INSPECTION_QUEUE_SORTS = ["submitted_asc", "submitted_desc", "customer_asc", "installer_asc"] as const;
 export const inspectionListQuerySchema = z.object({
   status: z.enum(["submitted", "returned", "draft", "approved", "all"]).default("submitted"),
   q: z.string().trim().max(100).default(""),

@@ -1,16 +1,9 @@
 import { z } from "zod";
 import { idSchema } from "./common";
+import { JOB_SORTS, JOB_STATUSES } from "./job-values";
 
-export const JOB_STATUSES = ["scheduled", "in_progress", "awaiting_review", "completed", "cancelled"] as const;
-export type JobStatus = (typeof JOB_STATUSES)[number];
+export { JOB_SORTS, JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "./job-values";
 
-export const JOB_STATUS_LABELS = {
-  scheduled: "Scheduled",
-  in_progress: "In progress",
-  awaiting_review: "Awaiting review",
-  completed: "Completed",
-  cancelled: "Cancelled",
-} as const satisfies Record<JobStatus, string>;
 
 const optionalText = (max: number, label: string) =>
   z.string().trim().max(max, `${label} can be at most ${max} characters.`).default("");
@@ -46,9 +39,6 @@ export const jobUpdateSchema = jobFormSchema.extend({
   version: z.number({ error: "The job's version is missing; reload the page." }).int().positive(),
 });
 export type JobUpdateValues = z.output<typeof jobUpdateSchema>;
-
-export const JOB_SORTS = ["updated_desc", "updated_asc", "customer_asc", "customer_desc", "scheduled_asc", "reference_desc"] as const;
-export type JobSort = (typeof JOB_SORTS)[number];
 
 export const jobListQuerySchema = z.object({
   q: z.string().trim().max(100, "Search for at most 100 characters.").default(""),

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useMutation } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { FindingsList } from "@/components/findings/findings-list";
 import { ErrorState } from "@/components/ui/states";
 import { apiFetch, ApiError } from "@/lib/client/api";
@@ -13,7 +14,7 @@ interface CheckResponse {
   findings: (Finding & { rulebookVersion: string })[];
 }
 
-export function CheckSandbox({ versions, example }: { versions: { versionId: number; label: string; current: boolean }[]; example: string }) {
+function CheckSandboxView({ versions, example }: { versions: { versionId: number; label: string; current: boolean }[]; example: string }) {
   const [text, setText] = useState(example);
   const [versionId, setVersionId] = useState<number | undefined>(versions.find((v) => v.current)?.versionId ?? versions[0]?.versionId);
   const [parseError, setParseError] = useState<string | null>(null);
@@ -91,3 +92,5 @@ export function CheckSandbox({ versions, example }: { versions: { versionId: num
     </div>
   );
 }
+
+export const CheckSandbox = withQueryClient(CheckSandboxView);

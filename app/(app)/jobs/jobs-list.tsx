@@ -3,11 +3,12 @@
 import Link from "next/link";
 import { useEffect, useState } from "react";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { JobStatusBadge } from "@/components/jobs/job-status-badge";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
 import { apiFetch } from "@/lib/client/api";
-import { JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "@/lib/schemas/job";
+import { JOB_STATUSES, JOB_STATUS_LABELS, type JobSort, type JobStatus } from "@/lib/schemas/job-values";
 
 interface JobRow {
   id: number;
@@ -45,7 +46,7 @@ function useDebounced<T>(value: T, ms: number): T {
   return debounced;
 }
 
-export function JobsList() {
+function JobsListView() {
   const [search, setSearch] = useState("");
   const [status, setStatus] = useState<JobStatus | "">("");
   const [sort, setSort] = useState<JobSort>("updated_desc");
@@ -178,3 +179,5 @@ export function JobsList() {
     </div>
   );
 }
+
+export const JobsList = withQueryClient(JobsListView);

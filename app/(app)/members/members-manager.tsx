@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { Field } from "@/components/ui/field";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
 import { apiFetch, ApiError } from "@/lib/client/api";
@@ -19,7 +20,7 @@ interface Member {
   mustChangePassword: boolean;
 }
 
-export function MembersManager({ currentUserId }: { currentUserId: number }) {
+function MembersManagerView({ currentUserId }: { currentUserId: number }) {
   const queryClient = useQueryClient();
   const members = useQuery({ queryKey: ["members"], queryFn: () => apiFetch<{ members: Member[] }>("/api/members") });
   const [rowError, setRowError] = useState<string | null>(null);
@@ -162,3 +163,5 @@ function AddMemberForm({ onAdded }: { onAdded: () => void }) {
     </section>
   );
 }
+
+export const MembersManager = withQueryClient(MembersManagerView);

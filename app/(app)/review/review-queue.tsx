@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { useEffect, useState } from "react";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { InspectionStatusBadge } from "@/components/inspection/inspection-status-badge";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
@@ -37,7 +38,7 @@ function age(iso: string | null): string {
   return hours < 24 ? `${hours} h` : `${Math.round(hours / 24)} d`;
 }
 
-export function ReviewQueue() {
+function ReviewQueueView() {
   const [status, setStatus] = useState<keyof typeof STATUSES>("submitted");
   const [sort, setSort] = useState<keyof typeof SORTS>("submitted_asc");
   const [q, setQ] = useState("");
@@ -145,3 +146,5 @@ export function ReviewQueue() {
     </div>
   );
 }
+
+export const ReviewQueue = withQueryClient(ReviewQueueView);

@@ -13,7 +13,7 @@ import {
 import type { Appliance, ConnectorSegment, VentRun } from "../inputs";
 import { PARAMETER_DEFINITIONS, type ParameterKey } from "../rulebook/parameters";
 import type { Cited, PreparedRulebook, RuleRef } from "../rulebook/prepare";
-import { RULEBOOK_TABLES, type RulebookTableKey } from "../rulebook/tables";
+import { RULEBOOK_TABLES, type RulebookTableKey } from "../rulebook/table-definitions";
 
 /** Optional parts of a finding. */
 export interface FindingExtras {

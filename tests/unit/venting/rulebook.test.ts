@@ -49,7 +49,7 @@ describe("RULEBOOK_TABLES metadata", () => {
   test("columns match each row schema exactly and include a citation", () => {
     for (const key of RULEBOOK_TABLE_KEYS) {
       const def = RULEBOOK_TABLES[key];
-      const shapeKeys = Object.keys((def.rowSchema as unknown as { shape: Record<string, unknown> }).shape).sort();
+      const shapeKeys = Object.keys(rulebookContentSchema.shape[key].element.shape).sort();
       expect(def.columns.map((c) => c.key).sort()).toEqual(shapeKeys);
       expect(def.columns.some((c) => c.key === "citation" && c.required)).toBe(true);
       for (const u of def.uniqueBy) expect(shapeKeys).toContain(u);

@@ -1,9 +1,9 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { VentRunDrawing } from "@/components/drawing/vent-run-drawing";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { SafetyNotice } from "@/components/safety-notice";
 import { useAutosave, readLocalDraft, type SaveStatus } from "@/components/inspection/use-autosave";
@@ -21,6 +21,10 @@ import { SubmitSection } from "./submit-section";
 import { FindingsPanel } from "./findings-panel";
 import { Section } from "./form-bits";
 import { toData, toFormValues, type InspectionFormValues } from "./form-values";
+
+// The vent-run drawing is rendered on the server with the page; the code that redraws it as the
+// fields change arrives in its own chunk, after the form's.
+const VentRunDrawing = dynamic(() => import("@/components/drawing/vent-run-drawing").then((m) => m.VentRunDrawing));
 
 const SECTIONS = [
   ["appliances", "Appliances"],

@@ -11,9 +11,8 @@ import { inspectionDataSchema } from "@/lib/inspections/data";
 import type { Appliance } from "@/lib/venting";
 import { InspectionEditor } from "./inspection-editor";
 import { InspectionStatusBadge } from "@/components/inspection/inspection-status-badge";
-import { ReviewPanel } from "./review-panel";
 import { RepinControl } from "./repin-control";
-import { RecordPanel } from "./record-panel";
+import { RecordPanel, ReviewPanel } from "./lazy-panels";
 import { can } from "@/lib/auth/roles";
 import { getJobById } from "@/lib/data/jobs";
 

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { ErrorState } from "@/components/ui/states";
 import { apiFetch, ApiError } from "@/lib/client/api";
 
@@ -48,7 +49,7 @@ function newKey() {
  * The signed record of an approved inspection: download, share links for the homeowner or an
  * inspector, e-mail with the link (and PDF), and revocation — for supervisors and admins.
  */
-export function RecordPanel({ inspectionId, canShare, customerEmail }: { inspectionId: number; canShare: boolean; customerEmail: string }) {
+function RecordPanelView({ inspectionId, canShare, customerEmail }: { inspectionId: number; canShare: boolean; customerEmail: string }) {
   const queryClient = useQueryClient();
   const key = ["record", inspectionId];
   const query = useQuery({ queryKey: key, queryFn: () => apiFetch<{ records: RecordRow[]; shareLinks: ShareLinkRow[]; emails: EmailRow[] }>(`/api/inspections/${inspectionId}/record`) });
@@ -238,3 +239,5 @@ export function RecordPanel({ inspectionId, canShare, customerEmail }: { inspect
     </section>
   );
 }
+
+export const RecordPanel = withQueryClient(RecordPanelView);

@@ -5,8 +5,8 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SignatureField } from "@/components/signature/signature-field";
 import { apiFetch, ApiError } from "@/lib/client/api";
-import { EMPTY_SIGNATURE, type SignatureValue } from "@/lib/schemas/signature";
-import { REVIEW_SECTIONS, REVIEW_SECTION_LABELS, type ReviewSection } from "@/lib/schemas/inspection";
+import { EMPTY_SIGNATURE, type SignatureValue } from "@/lib/schemas/signature-values";
+import { REVIEW_SECTIONS, REVIEW_SECTION_LABELS, type ReviewSection } from "@/lib/schemas/inspection-values";
 
 interface ReviewData {
   id: number;

@@ -5,7 +5,7 @@ import { useController, type Control } from "react-hook-form";
 import { FindingStatusChip } from "@/components/findings/finding-status";
 import { SignatureField } from "@/components/signature/signature-field";
 import { fieldId } from "@/components/inspection/field-id";
-import { EMPTY_SIGNATURE, type SignatureValue } from "@/lib/schemas/signature";
+import { EMPTY_SIGNATURE, type SignatureValue } from "@/lib/schemas/signature-values";
 import { JUSTIFICATION_MIN_LENGTH, findingKey, submissionBlockers, type InspectionFinding } from "@/lib/inspections/evaluate";
 import { Section } from "./form-bits";
 import type { InspectionFormValues } from "./form-values";

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { JobForm } from "@/components/jobs/job-form";
+import { JobForm } from "./lazy-job-form";
 import { JobStatusBadge } from "@/components/jobs/job-status-badge";
 import { requirePagePermission } from "@/lib/auth/session";
 import { can } from "@/lib/auth/roles";

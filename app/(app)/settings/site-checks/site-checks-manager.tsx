@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { withQueryClient } from "@/components/query-client";
 import { Field } from "@/components/ui/field";
 import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
 import { apiFetch, ApiError } from "@/lib/client/api";
@@ -31,7 +32,7 @@ type ItemsResponse = { items: SiteCheckItem[] };
 
 const QUERY_KEY = ["site-checks", "all"] as const;
 
-export function SiteChecksManager() {
+function SiteChecksManagerView() {
   const queryClient = useQueryClient();
   const items = useQuery({ queryKey: QUERY_KEY, queryFn: () => apiFetch<ItemsResponse>("/api/site-checks?includeInactive=1") });
   const [rowError, setRowError] = useState<string | null>(null);
@@ -278,3 +279,5 @@ function AddItemForm({ onAdded }: { onAdded: () => void }) {
     </section>
   );
 }
+
+export const SiteChecksManager = withQueryClient(SiteChecksManagerView);
