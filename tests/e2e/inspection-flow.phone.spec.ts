@@ -151,6 +151,7 @@ test("photo validation: a renamed text file is refused with a clear message", as
 
   await new SignInPage(page).signInAs("installer");
   await page.goto(`/inspections/${id}`);
+  await new InspectionPage(page).waitReady();
   await page.getByTestId("photo-file-input").setInputFiles(path.join(process.cwd(), "tests/fixtures/photos/not-a-photo.jpg"));
   await expect(page.getByTestId("photo-upload-error")).toContainText(/not a photo/i);
 });
@@ -162,9 +163,13 @@ test("autosave survives a refresh, and two editors get a conflict instead of an 
   const inspection = new InspectionPage(page);
   await new SignInPage(page).signInAs("installer");
   await page.goto(`/inspections/${id}`);
+  await inspection.waitReady();
+  const saved = page.waitForResponse((r) => r.url().endsWith(`/api/inspections/${id}/draft`) && r.request().method() === "PUT" && r.ok());
   await page.locator("#f-notes").fill("Flue collar re-sealed; customer told about the CO alarm.");
+  await saved;
   await inspection.expectSaved();
   await page.reload();
+  await inspection.waitReady();
   await expect(page.locator("#f-notes")).toHaveValue("Flue collar re-sealed; customer told about the CO alarm.");
 
   // Someone else saves in between.

@@ -19,6 +19,11 @@ export class InspectionPage {
     if (await close.isVisible()) await close.click();
   }
 
+  /** Waits until the editor runs in the browser, so what the test types is watched and saved. */
+  async waitReady() {
+    await expect(this.page.getByTestId("save-status")).toHaveAttribute("data-ready", "true", { timeout: 20_000 });
+  }
+
   async expectSaved() {
     await expect(this.page.getByTestId("save-status")).toContainText(/Saved|All changes saved/, { timeout: 15_000 });
   }

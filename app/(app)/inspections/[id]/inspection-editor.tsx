@@ -37,6 +37,10 @@ const SECTIONS = [
 ] as const;
 
 function SaveIndicator({ status, onRetry }: { status: SaveStatus; onRetry: () => void }) {
+  // Marks when the editor has come alive in the browser (changes are then watched and saved);
+  // the end-to-end tests wait for it before typing.
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
   const text =
     status.kind === "saved"
       ? status.at
@@ -51,7 +55,7 @@ function SaveIndicator({ status, onRetry }: { status: SaveStatus; onRetry: () =>
             : "Conflict";
   const tone = status.kind === "failed" || status.kind === "conflict" ? "bg-fail-soft text-fail" : status.kind === "saved" ? "bg-pass-soft text-pass" : "bg-ink-100 text-ink-700";
   return (
-    <span role="status" aria-live="polite" className={`inline-flex items-center gap-2 rounded-full px-3 py-1 text-xs font-semibold ${tone}`} data-testid="save-status">
+    <span role="status" aria-live="polite" className={`inline-flex items-center gap-2 rounded-full px-3 py-1 text-xs font-semibold ${tone}`} data-testid="save-status" data-ready={ready ? "true" : "false"}>
       {text}
       {status.kind === "failed" ? (
         <button type="button" className="underline" onClick={onRetry}>
