@@ -57,12 +57,9 @@ async function sessionIdFromCookie(): Promise<string | undefined> {
   const now = Date.now();
   const known = unsealedCookies.get(sealed);
   if (known && known.until > now) return known.sid;
-  const data = await unsealData<SessionData>(sealed, { password: options.password, ttl: options.ttl });
-  if (typeof data.sid !== "string" || data.sid.length === 0) {
-    unsealedCookies.delete(sealed);
-    return undefined;
-  }
   unsealedCookies.delete(sealed);
+  const data = await unsealData<SessionData>(sealed, { password: options.password, ttl: options.ttl });
+  if (typeof data.sid !== "string" || data.sid.length === 0) return undefined;
   unsealedCookies.set(sealed, { sid: data.sid, until: now + UNSEALED_COOKIE_TTL_MS });
   if (unsealedCookies.size > UNSEALED_COOKIE_LIMIT) unsealedCookies.delete(unsealedCookies.keys().next().value as string);
   return data.sid;

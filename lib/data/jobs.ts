@@ -78,8 +78,17 @@ function toJob(row: JobRow): Job {
   };
 }
 
+function jobsOfCompany(db: Knex | Knex.Transaction, companyId: number) {
+  return db("jobs as j").where("j.company_id", companyId);
+}
+
+/** The columns of JOB_COLUMNS need the assigned installer's name. */
+function withInstallerName(query: Knex.QueryBuilder) {
+  return query.leftJoin("users as u", "u.id", "j.assigned_installer_id");
+}
+
 function baseQuery(db: Knex | Knex.Transaction, companyId: number) {
-  return db("jobs as j").leftJoin("users as u", "u.id", "j.assigned_installer_id").where("j.company_id", companyId);
+  return withInstallerName(jobsOfCompany(db, companyId));
 }
 
 const SORT_COLUMNS = {
@@ -98,7 +107,7 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   // Filters touch only the jobs table, so the count runs on jobs alone (an index-only count);
   // the installer's name is joined in for the one page of rows.
   const filtered = () => {
-    const q = db("jobs as j").where("j.company_id", args.companyId);
+    const q = jobsOfCompany(db, args.companyId);
     if (query.status) q.andWhere("j.status", query.status);
     if (query.mine === "1") q.andWhere("j.assigned_installer_id", args.userId);
     if (query.q) {
@@ -117,7 +126,7 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   const total = Number(countRow?.n ?? 0);
   const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
   const page = Math.min(query.page, pageCount);
-  const listQuery = filtered().leftJoin("users as u", "u.id", "j.assigned_installer_id").select(JOB_COLUMNS);
+  const listQuery = withInstallerName(filtered()).select(JOB_COLUMNS);
   for (const [column, direction] of SORT_COLUMNS[query.sort]) listQuery.orderBy(column, direction);
   listQuery.orderBy("j.id", "desc");
   const rows = await listQuery.limit(query.pageSize).offset((page - 1) * query.pageSize);
