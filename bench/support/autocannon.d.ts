@@ -46,7 +46,14 @@ declare module "autocannon" {
     requests?: Request[];
     pipelining?: number;
   }
+  /** A running load: emits "response" (client, statusCode, bytes, responseTimeMs) per answer. */
+  interface Instance {
+    on(event: "response", listener: (client: object, statusCode: number, bytes: number, responseTimeMs: number) => void): Instance;
+    on(event: string, listener: (...args: unknown[]) => void): Instance;
+    stop(): void;
+  }
   function autocannon(options: Options): Promise<Result>;
+  function autocannon(options: Options, done: (error: Error | null, result: Result) => void): Instance;
   export default autocannon;
-  export type { Result, Options };
+  export type { Result, Options, Instance };
 }
