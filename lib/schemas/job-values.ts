@@ -15,3 +15,12 @@ export const JOB_STATUS_LABELS = {
 
 export const JOB_SORTS = ["updated_desc", "updated_asc", "customer_asc", "customer_desc", "scheduled_asc", "reference_desc"] as const;
 export type JobSort = (typeof JOB_SORTS)[number];
+
+export const JOB_SORT_LABELS: Record<JobSort, string> = {
+  updated_desc: "Recently updated",
+  updated_asc: "Least recently updated",
+  customer_asc: "Customer A–Z",
+  customer_desc: "Customer Z–A",
+  scheduled_asc: "Visit date",
+  reference_desc: "Newest reference",
+};

@@ -14,7 +14,9 @@ test.describe("jobs on a 375 px phone", () => {
 
   test("create a job: field errors first and nothing saved, then success", async ({ page, baseURL }) => {
     const api = await apiAs(baseURL!, "installer");
-    const before = (await (await api.get("/api/jobs")).json()).total as number;
+    // Counted by this test's customer, so jobs other tests create at the same time do not count.
+    const countQuayle = async () => (await (await api.get("/api/jobs?q=Rosalind%20Quayle")).json()).total as number;
+    const before = await countQuayle();
 
     await new SignInPage(page).signInAs("installer");
     const form = new JobFormPage(page);
@@ -25,14 +27,14 @@ test.describe("jobs on a 375 px phone", () => {
     await expect(form.fieldError("job-siteCity")).toHaveText("Enter the town or city.");
     await expect(form.fieldError("job-customerEmail")).toContainText("valid e-mail address");
     await expect(page).toHaveURL(/\/jobs\/new/);
-    expect((await (await api.get("/api/jobs")).json()).total).toBe(before);
+    expect(await countQuayle()).toBe(before);
 
     await form.fill({ "Customer name": "Rosalind Quayle", "E-mail": "rosalind.q@homeowner.test", "Town or city": "Ambervale", Notes: "Furnace and water heater on a common Type B vent." });
     await form.submitCreate();
     await page.waitForURL(/\/jobs\/\d+$/);
     await expect(page.getByRole("heading", { name: "Rosalind Quayle" })).toBeVisible();
     await expect(page.getByText("Created job")).toBeVisible();
-    expect((await (await api.get("/api/jobs")).json()).total).toBe(before + 1);
+    expect(await countQuayle()).toBe(before + 1);
   });
 
   test("the server refuses a bad job body with field errors and saves nothing", async ({ baseURL }) => {
@@ -58,6 +60,37 @@ test.describe("jobs on a 375 px phone", () => {
     await expect(list.getByRole("listitem")).toHaveCount(1);
     await page.getByLabel("Search").fill("zzzz-no-such-job");
     await expect(page.getByText("No jobs match")).toBeVisible();
+  });
+
+  test("the list's filters live in its address: typing is kept, a reload and a shared link show the same list", async ({ page, browser, baseURL }) => {
+    await new SignInPage(page).signInAs("supervisor");
+    const list = page.getByRole("list", { name: "Jobs" });
+    await page.getByLabel("Search").pressSequentially("Millrace", { delay: 40 });
+    await expect(page).toHaveURL(/[?&]q=Millrace(&|$)/);
+    await expect(list.getByRole("listitem")).toHaveCount(1);
+    await expect(page.getByLabel("Search")).toHaveValue("Millrace");
+    await page.getByLabel("Sort").selectOption("customer_asc");
+    await expect(page).toHaveURL(/sort=customer_asc/);
+    await page.reload();
+    await expect(page.getByLabel("Search")).toHaveValue("Millrace");
+    await expect(page.getByLabel("Sort")).toHaveValue("customer_asc");
+    await expect(list.getByText("Bartholomew Crane")).toBeVisible();
+
+    // The same address opened by someone else of the company shows the same list.
+    const other = await browser.newContext({ baseURL, viewport: { width: 375, height: 800 } });
+    const otherPage = await other.newPage();
+    await new SignInPage(otherPage).signInAs("admin");
+    await otherPage.goto(new URL(page.url()).pathname + new URL(page.url()).search);
+    await expect(otherPage.getByRole("list", { name: "Jobs" }).getByRole("listitem")).toHaveCount(1);
+    await expect(otherPage.getByLabel("Search")).toHaveValue("Millrace");
+    await other.close();
+  });
+
+  test("a filter the address gets wrong is explained, and the full list is shown", async ({ page }) => {
+    await new SignInPage(page).signInAs("supervisor");
+    await page.goto(`/jobs?q=${"x".repeat(150)}`);
+    await expect(page.getByRole("status").filter({ hasText: "could not be read" })).toContainText("at most 100 characters");
+    await expect(page.getByRole("list", { name: "Jobs" }).getByRole("listitem").first()).toBeVisible();
   });
 
   test("two people saving the same job: the second gets a conflict, not a silent overwrite", async ({ baseURL }) => {
