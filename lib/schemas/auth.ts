@@ -1,10 +1,11 @@
 import { z } from "zod";
 import { emailSchema } from "./common";
+import { PASSWORD_MESSAGES, SIGN_IN_PASSWORD_MAX_LENGTH } from "./auth-messages";
 import { PASSWORD_MAX_BYTES } from "@/lib/auth/password-policy";
 
 export const signInSchema = z.object({
   email: emailSchema,
-  password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(1000, "That password is too long."),
+  password: z.string({ error: PASSWORD_MESSAGES.missing }).min(1, PASSWORD_MESSAGES.missing).max(SIGN_IN_PASSWORD_MAX_LENGTH, PASSWORD_MESSAGES.tooLong),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 

@@ -44,6 +44,21 @@ test.describe("sign-in and sign-out", () => {
     await expect(page.locator("#password-error")).toHaveText("Enter your password.");
   });
 
+  test("a sign-in sent before the page's script runs never puts the password in the address", async ({ browser, baseURL }) => {
+    // With scripts off, the form is what a phone submits before hydration: it must post, not get.
+    const context = await browser.newContext({ baseURL, javaScriptEnabled: false });
+    const page = await context.newPage();
+    await page.goto("/sign-in");
+    await page.getByLabel("E-mail").fill("someone@flueward.test");
+    await page.getByLabel("Password").fill("not-in-the-address-please");
+    const [request] = await Promise.all([page.waitForRequest((r) => r.url().includes("/sign-in") && r.isNavigationRequest()), page.getByRole("button", { name: "Sign in" }).click()]);
+    expect(request.method()).toBe("POST");
+    await page.waitForLoadState();
+    expect(page.url()).not.toContain("not-in-the-address-please");
+    await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
+    await context.close();
+  });
+
   test("sign-out ends the session on the server: a replayed cookie is refused", async ({ page, context }) => {
     await new SignInPage(page).signInAs("installer");
     const cookies = await context.cookies();
