@@ -76,6 +76,7 @@ async function main() {
     { name: "jobs: mine", call: () => jobs.listJobs({ companyId: company.id, userId: installer.id, query: jobListQuerySchema.parse({ mine: "1" }) }) },
     { name: "jobs: sort by customer", call: () => jobs.listJobs({ companyId: company.id, userId: installer.id, query: jobListQuerySchema.parse({ sort: "customer_asc" }) }) },
     { name: "jobs: search 'brook'", call: () => jobs.listJobs({ companyId: company.id, userId: installer.id, query: jobListQuerySchema.parse({ q: "brook" }) }) },
+    { name: "jobs: search, one match (a reference)", call: () => jobs.listJobs({ companyId: company.id, userId: installer.id, query: jobListQuerySchema.parse({ q: "J-0042" }) }) },
     { name: "jobs: search, no match", call: () => jobs.listJobs({ companyId: company.id, userId: installer.id, query: jobListQuerySchema.parse({ q: "zzqx" }) }) },
     { name: "jobs: one job", call: () => jobs.getJobById({ companyId: company.id, id: someJob.id }) },
     { name: "inspections: review queue (submitted)", call: () => inspections.listInspections({ companyId: company.id, query: inspectionListQuerySchema.parse({}) }) },

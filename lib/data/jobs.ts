@@ -126,10 +126,19 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   const total = Number(countRow?.n ?? 0);
   const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
   const page = Math.min(query.page, pageCount);
-  const listQuery = withInstallerName(filtered()).select(JOB_COLUMNS);
+  const offset = (page - 1) * query.pageSize;
+  if (total === 0) return { items: [], total, page, pageSize: query.pageSize, pageCount };
+  // A text search walks the jobs in the sorted order and tests each one until the page is full:
+  // quick when matches are common, a walk through nearly every job when they are rare. When the
+  // page asks for more than half of the matches, find the matching ids first (one pass over the
+  // covering search index, as the count did) and sort only those.
+  const rareMatches = Boolean(query.q) && (offset + query.pageSize) * 2 > total;
+  const listQuery = rareMatches
+    ? baseQuery(db, args.companyId).whereIn("j.id", filtered().select("j.id")).select(JOB_COLUMNS)
+    : withInstallerName(filtered()).select(JOB_COLUMNS);
   for (const [column, direction] of SORT_COLUMNS[query.sort]) listQuery.orderBy(column, direction);
   listQuery.orderBy("j.id", "desc");
-  const rows = await listQuery.limit(query.pageSize).offset((page - 1) * query.pageSize);
+  const rows = await listQuery.limit(query.pageSize).offset(offset);
   return { items: rows.map(toJob), total, page, pageSize: query.pageSize, pageCount };
 }
 
