@@ -49,7 +49,7 @@ describe("inspection list search", () => {
   test("matches the customer's name, the job reference and the installer's name", async () => {
     expect(await search("halloway")).toEqual({ total: 1, ids: [ids.wren] });
     expect(await search("J-0777")).toEqual({ total: 1, ids: [ids.wren] });
-    expect(await search("Installer")).toEqual({ total: 2, ids: [ids.a1, ids.wren].sort((x, y) => x - y) });
+    expect(await search("Installer")).toEqual({ total: 2, ids: [ids.a1!, ids.wren!].sort((x, y) => x - y) });
   });
 
   test("never finds another company's inspections, even when their text matches", async () => {
@@ -63,5 +63,13 @@ describe("inspection list search", () => {
     expect(await search("%")).toEqual({ total: 0, ids: [] });
     expect(await search("_")).toEqual({ total: 0, ids: [] });
     expect(await search("zzzz")).toEqual({ total: 0, ids: [] });
+  });
+
+  test("without a search, the count is the company's inspections of that status only", async () => {
+    const count = async (status: string, companyId: number) => (await inspections.listInspections({ companyId, query: inspectionListQuerySchema.parse({ status }) })).total;
+    expect(await count("all", world.a.companyId)).toBe(2);
+    expect(await count("draft", world.a.companyId)).toBe(2);
+    expect(await count("submitted", world.a.companyId)).toBe(0);
+    expect(await count("all", world.b.companyId)).toBe(1);
   });
 });
