@@ -49,11 +49,12 @@ function MembersManagerView({ currentUserId }: { currentUserId: number }) {
           <ul className="space-y-2">
             {members.data.members.map((m) => (
               <li key={m.id} className={`card flex flex-wrap items-center gap-3 p-3 ${m.active ? "" : "opacity-70"}`} data-testid={`member-${m.email}`}>
-                <div className="min-w-0 flex-1">
-                  <p className="font-semibold">
+                {/* On a phone the name and e-mail take the whole row; the role and button wrap beneath. */}
+                <div className="min-w-0 basis-full sm:flex-1 sm:basis-0">
+                  <p className="break-words font-semibold">
                     {m.name} {m.id === currentUserId ? <span className="text-xs font-normal text-ink-500">(you)</span> : null}
                   </p>
-                  <p className="truncate text-sm text-ink-600">{m.email}</p>
+                  <p className="break-all text-sm text-ink-600 sm:truncate sm:break-normal">{m.email}</p>
                   <p className="text-xs text-ink-500">
                     {m.active ? "Active" : "Deactivated"}
                     {m.mustChangePassword && m.active ? " · temporary password not yet changed" : ""}

@@ -13,16 +13,24 @@ export const metadata = { title: "Review queue" };
 
 type SearchParams = Record<string, string | string[] | undefined>;
 
-function waiting(iso: string | null, now: number): string {
-  if (!iso) return "—";
+function age(iso: string, now: number): string {
   const hours = Math.max(0, Math.round((now - Date.parse(iso)) / 3_600_000));
   return hours < 24 ? `${hours} h` : `${Math.round(hours / 24)} d`;
 }
 
+/** How long a submitted inspection has waited; for the others, when they were submitted, if ever. */
+function submittedWhen(row: InspectionSummaryRow, now: number): string {
+  if (!row.submittedAt) return "not submitted";
+  return row.status === "submitted" ? `waiting ${age(row.submittedAt, now)}` : `submitted ${age(row.submittedAt, now)} ago`;
+}
+
+/** Fails in a submitted revision were justified before it could be sent; a draft's are not yet. */
 function findingCounts(row: InspectionSummaryRow): string {
   if (!row.summary) return "—";
   const { counts } = row.summary;
-  return `${counts.fail ?? 0} fail (justified), ${counts.warn ?? 0} warn, ${counts.pass ?? 0} pass`;
+  const fails = counts.fail ?? 0;
+  const justified = row.status !== "draft" && fails > 0 ? " (justified)" : "";
+  return `${fails} fail${justified}, ${counts.warn ?? 0} warn, ${counts.pass ?? 0} pass`;
 }
 
 /** Submitted inspections (by default), searched, filtered, sorted and paged by the page's address. */
@@ -75,13 +83,10 @@ export default async function ReviewPage({ searchParams }: { searchParams: Promi
                       <InspectionStatusBadge status={row.status} />
                     </div>
                     <p className="mt-0.5 text-sm text-ink-600">
-                      {row.siteCity} · {row.installerName ?? "No installer"} · waiting {waiting(row.submittedAt, now)}
+                      {row.siteCity} · {row.installerName ?? "No installer"} · {submittedWhen(row, now)}
                     </p>
                     <p className="mt-1 text-xs text-ink-500">
-                      <span className="font-mono">
-                        {row.jobReference} · r{row.revision}
-                      </span>{" "}
-                      · {findingCounts(row)}
+                      <span className="font-mono">{row.jobReference}</span> revision {row.revision} · {findingCounts(row)}
                     </p>
                   </Link>
                 </li>
@@ -94,7 +99,7 @@ export default async function ReviewPage({ searchParams }: { searchParams: Promi
                     {header(null, "Job")}
                     {header("customer_asc", "Customer")}
                     {header("installer_asc", "Installer")}
-                    {header("submitted_asc", "Waiting")}
+                    {header("submitted_asc", "Submitted")}
                     {header(null, "Findings")}
                     {header(null, "Status")}
                   </tr>
@@ -112,7 +117,7 @@ export default async function ReviewPage({ searchParams }: { searchParams: Promi
                         <span className="block text-xs text-ink-500">{row.siteCity}</span>
                       </td>
                       <td className="px-3 py-2">{row.installerName ?? "—"}</td>
-                      <td className="px-3 py-2">{waiting(row.submittedAt, now)}</td>
+                      <td className="px-3 py-2">{submittedWhen(row, now)}</td>
                       <td className="px-3 py-2 text-xs">{findingCounts(row)}</td>
                       <td className="px-3 py-2">
                         <InspectionStatusBadge status={row.status} />
