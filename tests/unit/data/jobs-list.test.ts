@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createTestDatabase } from "@/tests/fixtures/test-db";
+import { createTestDatabase, insertCompany } from "@/tests/fixtures/test-db";
 import { jobListQuerySchema } from "@/lib/schemas/job";
 
 type DataModule = typeof import("@/lib/data/jobs");
@@ -22,20 +22,14 @@ interface SeedJob {
 }
 const seeded: SeedJob[] = [];
 
-async function insertCompany(name: string): Promise<number> {
-  const now = new Date().toISOString();
-  const [row] = await db("companies").insert({ name, created_at: now, updated_at: now }).returning("id");
-  return typeof row === "object" ? (row as { id: number }).id : (row as number);
-}
-
 beforeAll(async () => {
   const test = await createTestDatabase();
   db = test.db;
   cleanup = test.cleanup;
   process.env.FLUEWARD_DB_FILE = test.file;
   data = await import("@/lib/data/jobs");
-  companyA = await insertCompany("Test Heating A");
-  companyB = await insertCompany("Test Heating B");
+  companyA = await insertCompany(db, "Test Heating A");
+  companyB = await insertCompany(db, "Test Heating B");
   // 300 jobs in company A: "Brook" is common (every 3rd), "Quillon" rare (3 jobs, spread out),
   // "Ashgrove" in the city of 25; company B has Quillons of its own that must never show.
   for (let n = 0; n < 300; n++) {

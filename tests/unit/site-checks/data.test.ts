@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createTestDatabase } from "@/tests/fixtures/test-db";
+import { createTestDatabase, insertCompany } from "@/tests/fixtures/test-db";
 import { DEFAULT_SITE_CHECK_ITEMS } from "@/lib/site-checks";
 
 type DataModule = typeof import("@/lib/data/site-checks");
@@ -12,12 +12,6 @@ let companyA: number;
 let companyB: number;
 const actor = { userId: null, name: "Test admin" };
 
-async function insertCompany(name: string): Promise<number> {
-  const now = new Date().toISOString();
-  const [row] = await db("companies").insert({ name, created_at: now, updated_at: now }).returning("id");
-  return typeof row === "object" ? (row as { id: number }).id : (row as number);
-}
-
 beforeAll(async () => {
   const test = await createTestDatabase();
   db = test.db;
@@ -25,8 +19,8 @@ beforeAll(async () => {
   // db/knex.ts reads the file name on first use, so the data module is loaded only after this.
   process.env.FLUEWARD_DB_FILE = test.file;
   data = await import("@/lib/data/site-checks");
-  companyA = await insertCompany("Test Heating A");
-  companyB = await insertCompany("Test Heating B");
+  companyA = await insertCompany(db, "Test Heating A");
+  companyB = await insertCompany(db, "Test Heating B");
 });
 
 afterAll(async () => {
