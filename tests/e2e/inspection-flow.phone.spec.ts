@@ -203,3 +203,29 @@ test("roles on inspection routes: installers cannot approve, return or see the q
   expect((await signedOut.get(`/api/inspections/${id}`)).status()).toBe(401);
   expect((await signedOut.put(`/api/inspections/${id}/draft`, { data: { version: 1, data: {} } })).status()).toBe(401);
 });
+
+test("before its script runs, the editor's fields are disabled, so nothing typed can miss the autosave", async ({ page, baseURL }) => {
+  const api = await apiAs(baseURL!, "installer");
+  const jobs = (await (await api.get("/api/jobs?status=in_progress")).json()).items as { id: number }[];
+  const { id } = await (await api.post(`/api/jobs/${jobs[0]!.id}/inspections`, { data: {} })).json();
+  await new SignInPage(page).signInAs("installer");
+
+  // Hold the page's script files (not its styles): the server-rendered editor is on screen (its
+  // inline scripts still reveal the streamed parts) but React has not hydrated it, as on a slow phone.
+  const held: (() => Promise<void>)[] = [];
+  await page.route("**/_next/static/chunks/*.js", (route) => {
+    held.push(() => route.continue());
+  });
+  await page.goto(`/inspections/${id}`, { waitUntil: "domcontentloaded" });
+  await expect(page.locator("#f-notes")).toBeVisible();
+  await expect(page.locator("#f-notes")).toBeDisabled();
+  await expect(page.getByRole("button", { name: "Add appliance" })).toBeDisabled();
+  expect(held.length).toBeGreaterThan(0);
+
+  // Once the scripts arrive and the editor runs, the same fields take input.
+  await Promise.all(held.map((release) => release()));
+  await page.unroute("**/_next/static/chunks/*.js");
+  await new InspectionPage(page).waitReady();
+  await expect(page.locator("#f-notes")).toBeEnabled();
+  await expect(page.getByRole("button", { name: "Add appliance" })).toBeEnabled();
+});

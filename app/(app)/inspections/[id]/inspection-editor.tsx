@@ -95,6 +95,10 @@ export function InspectionEditor(props: EditorProps) {
   const { schedule } = autosave;
   const [submitError, setSubmitError] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+  // Until the editor runs in the browser its fields are disabled: text typed into the server-
+  // rendered page before then would be kept on screen but never reach the autosave.
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
 
   // A copy on this device that the server never received (offline, failed save) comes back first.
   const restored = useRef(false);
@@ -194,7 +198,8 @@ export function InspectionEditor(props: EditorProps) {
           </ul>
         </nav>
 
-        <form onSubmit={(e) => e.preventDefault()} className="space-y-10" aria-label="Inspection">
+        <form onSubmit={(e) => e.preventDefault()} aria-label="Inspection" aria-busy={!hydrated}>
+          <fieldset disabled={!hydrated} className="min-w-0 space-y-10">
           <AppliancesSection control={control} editable={props.editable} jobAppliances={props.jobAppliances} getValues={getValues} setValue={setValue} />
           <VentRunSection
             control={control}
@@ -216,6 +221,7 @@ export function InspectionEditor(props: EditorProps) {
             <textarea id="f-notes" rows={3} className="input" disabled={!props.editable} placeholder="Anything the supervisor or the homeowner should know" {...form.register("notes")} />
           </Section>
           {props.editable ? <SubmitSection control={control} findings={findings} onSubmit={submit} busy={submitting} error={submitError} defaultName={props.memberName} /> : null}
+          </fieldset>
         </form>
       </div>
       {shown ? <FindingsPanel findings={findings} summary={shown.summary} rulebookLabel={props.rulebookLabel} /> : null}
