@@ -10,6 +10,7 @@ import type { FindingSummary } from "@/lib/venting";
 import type { InspectionListQuery, ReviewSection } from "@/lib/schemas/inspection";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
+import { containsPattern } from "./like";
 import { getCurrentRulebookVersion, getRulebookVersionById } from "./rulebooks";
 import { listSiteCheckItems } from "./site-checks";
 import { assertEditable, getInspectionAccess, type InspectionStatus } from "./inspection-access";
@@ -138,11 +139,14 @@ const QUEUE_SORTS = {
 export async function listInspections(args: { companyId: number; query: InspectionListQuery }) {
   const { query } = args;
   const db = getDb();
-  const filtered = () => {
-    const q = summaryQuery(db, args.companyId);
+  const byStatus = <Q extends Knex.QueryBuilder>(q: Q): Q => {
     if (query.status !== "all") q.andWhere("i.status", query.status);
+    return q;
+  };
+  const filtered = () => {
+    const q = byStatus(summaryQuery(db, args.companyId));
     if (query.q) {
-      const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      const like = containsPattern(query.q);
       // Match the company's jobs and members first (one pass over each, the jobs through their
       // covering search index), then take their inspections by id: testing the text on every
       // joined inspection row costs three times as much on a large company.
@@ -157,7 +161,7 @@ export async function listInspections(args: { companyId: number; query: Inspecti
   };
   // Without a search the count needs no join: every inspection's job belongs to its company, so
   // counting the company's inspections by status is an index-only count.
-  const counted = query.q ? filtered() : db("inspections as i").where("i.company_id", args.companyId).modify((c) => (query.status !== "all" ? c.andWhere("i.status", query.status) : c));
+  const counted = query.q ? filtered() : byStatus(db("inspections as i").where("i.company_id", args.companyId));
   const total = Number((await counted.count<{ n: number }[]>({ n: "i.id" }).first())?.n ?? 0);
   const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
   const page = Math.min(query.page, pageCount);

@@ -5,6 +5,7 @@ import { AppError } from "@/lib/errors";
 import type { JobFormValues, JobListQuery, JobStatus, JobUpdateValues } from "@/lib/schemas/job";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
+import { containsPattern } from "./like";
 
 export interface Job {
   id: number;
@@ -111,7 +112,7 @@ export async function listJobs(args: { companyId: number; userId: number; query:
     if (query.status) q.andWhere("j.status", query.status);
     if (query.mine === "1") q.andWhere("j.assigned_installer_id", args.userId);
     if (query.q) {
-      const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      const like = containsPattern(query.q);
       q.andWhere((w) =>
         w
           .whereRaw("j.customer_name like ? escape '\\'", [like])
