@@ -29,7 +29,20 @@ export function useListFilters<F extends ListFilters>(current: F, defaults: F, t
     }
     // `current` is a fresh object on every render; its address is what matters.
   }, [currentAddress]);
-  useEffect(() => () => clearTimeout(typingTimer.current), []);
+  useEffect(() => {
+    // Leaving the list (a link, back or forward) drops a search still waiting for the typing pause,
+    // so it cannot pull the page back to the list after the next page has been asked for.
+    const dropPendingSearch = (event: Event) => {
+      if (event.type === "popstate" || (event.target instanceof Element && event.target.closest("a[href]"))) clearTimeout(typingTimer.current);
+    };
+    document.addEventListener("click", dropPendingSearch, true);
+    window.addEventListener("popstate", dropPendingSearch);
+    return () => {
+      clearTimeout(typingTimer.current);
+      document.removeEventListener("click", dropPendingSearch, true);
+      window.removeEventListener("popstate", dropPendingSearch);
+    };
+  }, []);
 
   const go = (next: F) => {
     const address = listSearch(next, defaults);

@@ -86,6 +86,18 @@ test.describe("jobs on a 375 px phone", () => {
     await other.close();
   });
 
+  test("opening a job while a search is still waiting for the typing pause stays on the job", async ({ page }) => {
+    await new SignInPage(page).signInAs("supervisor");
+    const list = page.getByRole("list", { name: "Jobs" });
+    await page.getByLabel("Search").pressSequentially("Crane");
+    // Tapped before the pause is over: the list still shows every job.
+    await list.getByRole("link", { name: /Bartholomew Crane/ }).click();
+    await page.waitForURL(/\/jobs\/\d+$/);
+    await page.waitForTimeout(1_000);
+    await expect(page).toHaveURL(/\/jobs\/\d+$/);
+    await expect(page.getByRole("heading", { name: "Bartholomew Crane" })).toBeVisible();
+  });
+
   test("a filter the address gets wrong is explained, and the full list is shown", async ({ page }) => {
     await new SignInPage(page).signInAs("supervisor");
     await page.goto(`/jobs?q=${"x".repeat(150)}`);
