@@ -1,12 +1,7 @@
-import {
-  RULEBOOK_TABLES,
-  RULEBOOK_TABLE_KEYS,
-  validateRulebookTable,
-  type ColumnDefinition,
-  type RulebookContent,
-  type RulebookRow,
-  type RulebookTableKey,
-} from "../venting";
+// The zod-free parts of the engine only: this module runs in the rulebook editor's bundle.
+import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "../venting/rulebook/table-definitions";
+import type { RulebookContent, RulebookRow } from "../venting/rulebook/tables";
+import { validateRulebookTable } from "../venting/rulebook/validate";
 
 /**
  * CSV import and export of one rulebook table at a time, driven by the table's column

@@ -87,7 +87,8 @@ export type {
   ParameterRow,
   TerminationHeightRow,
 } from "./rulebook/tables";
-export { validateRulebookContent, validateRulebookTable, RULEBOOK_MESSAGES } from "./rulebook/validate";
+export { validateRulebookTable, RULEBOOK_MESSAGES } from "./rulebook/validate";
+export { validateRulebookContent } from "./rulebook/validate-content";
 export type { RulebookIssue } from "./rulebook/validate";
 export { prepareRulebook, RulebookInvalidError } from "./rulebook/prepare";
 export type { PreparedRulebook, RuleRef, Cited, CapacityGrid } from "./rulebook/prepare";

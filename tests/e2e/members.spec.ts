@@ -34,6 +34,41 @@ test.describe("members (admin)", () => {
     await newcomer.close();
   });
 
+  test("in the page: bad input gets the schema's words beside each field and keeps what was typed; role and access changes show in the list", async ({ page }) => {
+    await new SignInPage(page).signInAs("admin");
+    await page.goto("/members");
+    await page.getByLabel("Name").fill("Ottilie Brenn");
+    await page.getByLabel("E-mail").fill("ottilie.brenn@");
+    await page.getByRole("button", { name: "Add member" }).click();
+    // The message is memberCreateSchema's own (lib/schemas/auth-messages.ts), sent back by the server.
+    await expect(page.locator("#member-email-error")).toHaveText("Enter a valid e-mail address, like name@example.com.");
+    await expect(page.getByLabel("E-mail")).toBeFocused();
+    await expect(page.getByLabel("Name")).toHaveValue("Ottilie Brenn");
+    await expect(page.getByTestId("temporary-password")).toHaveCount(0);
+
+    await page.getByLabel("E-mail").fill("ottilie.brenn@flueward.test");
+    await page.getByLabel("Role", { exact: true }).selectOption("supervisor");
+    await page.getByRole("button", { name: "Add member" }).click();
+    await expect(page.getByTestId("temporary-password")).toBeVisible();
+    await expect(page.locator("#member-email-error")).toHaveText("");
+    await expect(page.getByLabel("Name")).toHaveValue("");
+    const row = page.getByTestId("member-ottilie.brenn@flueward.test");
+    await expect(row.getByLabel("Role of Ottilie Brenn")).toHaveValue("supervisor");
+
+    const saved = page.waitForResponse((r) => r.url().includes("/api/members/") && r.request().method() === "PATCH");
+    await row.getByLabel("Role of Ottilie Brenn").selectOption("installer");
+    expect((await saved).status()).toBe(200);
+    await page.reload();
+    await expect(page.getByTestId("member-ottilie.brenn@flueward.test").getByLabel("Role of Ottilie Brenn")).toHaveValue("installer");
+
+    await page.getByTestId("member-ottilie.brenn@flueward.test").getByRole("button", { name: "Deactivate" }).click();
+    await expect(page.getByTestId("member-ottilie.brenn@flueward.test")).toContainText("Deactivated");
+    await page.getByTestId("member-ottilie.brenn@flueward.test").getByRole("button", { name: "Reactivate" }).click();
+    await expect(page.getByTestId("member-ottilie.brenn@flueward.test")).toContainText("Active");
+    // The admin's own row offers no way to lock themself out.
+    await expect(page.getByTestId("member-admin@flueward.test").getByRole("button")).toHaveCount(0);
+  });
+
   test("deactivating a member ends their live session at once", async ({ baseURL }) => {
     const admin = await apiAs(baseURL!, "admin");
     const created = await admin.post("/api/members", { data: { name: "Lucan Ferrow", email: "lucan.ferrow@flueward.test", role: "supervisor" } });

@@ -3,7 +3,7 @@ import { requirePagePermission } from "@/lib/auth/session";
 import { can } from "@/lib/auth/roles";
 import { listRulebooks } from "@/lib/data/rulebooks";
 import { EmptyState } from "@/components/ui/states";
-import { RulebookCopyButton } from "./rulebook-actions";
+import { RulebookCopyButton } from "./rulebook-copy-button";
 
 export const metadata = { title: "Rulebooks" };
 

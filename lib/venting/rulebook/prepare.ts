@@ -8,7 +8,8 @@ import {
   type RulebookTableKey,
   type TerminationHeightRow,
 } from "./tables";
-import { validateRulebookContent, type RulebookIssue } from "./validate";
+import type { RulebookIssue } from "./validate";
+import { validateRulebookContent } from "./validate-content";
 
 /** Where in the rulebook a value came from. */
 export interface RuleRef {

@@ -1,13 +1,12 @@
-import type { z } from "zod";
 import { PARAMETER_DEFINITIONS, type ParameterDefinition } from "./parameters";
-import {
-  RULEBOOK_TABLES,
-  RULEBOOK_TABLE_KEYS,
-  rulebookContentSchema,
-  type ColumnDefinition,
-  type RulebookContent,
-  type RulebookTableKey,
-} from "./tables";
+import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "./table-definitions";
+import type { RulebookContent } from "./tables";
+
+/*
+ * Validation is written against the column definitions rather than the zod row schemas, so the
+ * rulebook editor can run it in the browser without shipping zod. A unit test holds the two
+ * together: content passes these shape checks exactly when `rulebookContentSchema` accepts it.
+ */
 
 /** One problem found in a rulebook, pointing at the table cell to fix. */
 export interface RulebookIssue {
@@ -65,7 +64,7 @@ export const RULEBOOK_MESSAGES = {
     `Row ${row}: ${label} must be one of ${options.join(", ")}.`,
   missingTable: (title: string) => `The table "${title}" is missing; add it (it may be empty).`,
   edition: () => "State the edition (code and year, or the company's own revision) this rulebook follows.",
-  generic: (row: number | null, message: string) => (row === null ? message : `Row ${row}: ${message}`),
+  notARow: (row: number) => `Row ${row} is not a table row; give it one value per column.`,
 } as const;
 
 function columnOf(table: RulebookTableKey, key: string): ColumnDefinition | undefined {
@@ -73,30 +72,44 @@ function columnOf(table: RulebookTableKey, key: string): ColumnDefinition | unde
   return cols.find((c) => c.key === key);
 }
 
-function mapZodIssue(issue: z.core.$ZodIssue): RulebookIssue {
-  const [first, second, third] = issue.path;
-  if (typeof first !== "string" || !(RULEBOOK_TABLE_KEYS as string[]).includes(first)) {
-    if (first === "edition") {
-      return { table: null, rowIndex: null, column: "edition", message: RULEBOOK_MESSAGES.edition(), severity: "error" };
+export function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === "object" && value !== null && !Array.isArray(value);
+}
+
+/** What a cell of this column must hold, or null when `value` fits. */
+function cellProblem(col: ColumnDefinition, value: unknown, row: number): string | null {
+  switch (col.kind) {
+    case "number":
+      if (typeof value === "number" && Number.isFinite(value)) return null;
+      if (value === null && !col.required) return null;
+      return RULEBOOK_MESSAGES.wrongType(row, col.label, col.required ? "a number" : "a number or empty");
+    case "text":
+      return typeof value === "string" ? null : RULEBOOK_MESSAGES.wrongType(row, col.label, "text");
+    case "boolean":
+      return typeof value === "boolean" ? null : RULEBOOK_MESSAGES.wrongType(row, col.label, "yes or no");
+    case "enum":
+      return typeof value === "string" && (col.options ?? []).includes(value) ? null : RULEBOOK_MESSAGES.badOption(row, col.label, col.options ?? []);
+  }
+}
+
+/** Problems of type and shape: a missing table, a row that is not a row, a word where a number belongs. */
+function checkShape(table: RulebookTableKey, rows: unknown): RulebookIssue[] {
+  if (!Array.isArray(rows)) {
+    return [{ table, rowIndex: null, column: null, message: RULEBOOK_MESSAGES.missingTable(RULEBOOK_TABLES[table].title), severity: "error" }];
+  }
+  const cols: readonly ColumnDefinition[] = RULEBOOK_TABLES[table].columns;
+  const out: RulebookIssue[] = [];
+  rows.forEach((r: unknown, i) => {
+    if (!isRecord(r)) {
+      out.push({ table, rowIndex: i, column: null, message: RULEBOOK_MESSAGES.notARow(i + 1), severity: "error" });
+      return;
     }
-    return { table: null, rowIndex: null, column: typeof first === "string" ? first : null, message: issue.message, severity: "error" };
-  }
-  const table = first as RulebookTableKey;
-  if (second === undefined) {
-    return { table, rowIndex: null, column: null, message: RULEBOOK_MESSAGES.missingTable(RULEBOOK_TABLES[table].title), severity: "error" };
-  }
-  const rowIndex = typeof second === "number" ? second : null;
-  const column = typeof third === "string" ? third : null;
-  const row = rowIndex === null ? null : rowIndex + 1;
-  const col = column === null ? undefined : columnOf(table, column);
-  const label = col?.label ?? column ?? "this row";
-  let message: string;
-  if (col?.kind === "enum" && col.options) message = RULEBOOK_MESSAGES.badOption(row ?? 0, label, col.options);
-  else if (col?.kind === "number") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, col.required ? "a number" : "a number or empty");
-  else if (col?.kind === "boolean") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, "yes or no");
-  else if (col?.kind === "text") message = RULEBOOK_MESSAGES.wrongType(row ?? 0, label, "text");
-  else message = RULEBOOK_MESSAGES.generic(row, issue.message);
-  return { table, rowIndex, column, message, severity: "error" };
+    for (const col of cols) {
+      const message = cellProblem(col, r[col.key], i + 1);
+      if (message) out.push({ table, rowIndex: i, column: col.key, message, severity: "error" });
+    }
+  });
+  return out;
 }
 
 function rowKey(row: Record<string, unknown>, cols: readonly string[]): string {
@@ -221,25 +234,6 @@ function checkCapacity(rows: RulebookContent["capacity"], out: RulebookIssue[]):
   }
 }
 
-/**
- * Checks rulebook content and lists every problem with the table, row and column to fix.
- * Structural problems (a missing table, a word where a number belongs) come from the schema;
- * the rest are rules about the values: citations present, no negative lengths, shares within 0–1,
- * no duplicated rows, parameters in their fixed units, roof pitches in order and contiguous,
- * capacity minimums not above maximums. An empty list means the rulebook can be used.
- */
-export function validateRulebookContent(content: unknown): RulebookIssue[] {
-  const parsed = rulebookContentSchema.safeParse(content);
-  if (!parsed.success) return parsed.error.issues.map(mapZodIssue);
-  const c = parsed.data;
-  const out: RulebookIssue[] = [];
-  if (c.edition.trim() === "") {
-    out.push({ table: null, rowIndex: null, column: "edition", message: RULEBOOK_MESSAGES.edition(), severity: "error" });
-  }
-  for (const table of RULEBOOK_TABLE_KEYS) out.push(...validateParsedTable(table, c[table]));
-  return out;
-}
-
 function validateParsedTable<K extends RulebookTableKey>(table: K, rows: RulebookContent[K]): RulebookIssue[] {
   const out: RulebookIssue[] = [];
   checkColumns(table, rows as readonly Record<string, unknown>[], out);
@@ -251,10 +245,10 @@ function validateParsedTable<K extends RulebookTableKey>(table: K, rows: Ruleboo
 
 /**
  * Checks the rows of one table (for an editor grid or a CSV import) with the same rules as
- * {@link validateRulebookContent}.
+ * {@link validateRulebookContent}. Value rules run only once the table's shape is right.
  */
 export function validateRulebookTable<K extends RulebookTableKey>(table: K, rows: unknown): RulebookIssue[] {
-  const parsed = rulebookContentSchema.shape[table].safeParse(rows);
-  if (!parsed.success) return parsed.error.issues.map((i) => mapZodIssue({ ...i, path: [table, ...i.path] }));
-  return validateParsedTable(table, parsed.data as RulebookContent[K]);
+  const shape = checkShape(table, rows);
+  if (shape.length > 0) return shape;
+  return validateParsedTable(table, rows as RulebookContent[K]);
 }

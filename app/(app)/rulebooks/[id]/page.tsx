@@ -5,7 +5,7 @@ import { can } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { getRulebook, getRulebookVersion, type RulebookDetail, type RulebookVersion } from "@/lib/data/rulebooks";
 import { idSchema } from "@/lib/schemas/common";
-import { RulebookStatusActions } from "../rulebook-actions";
+import { RulebookStatusActions } from "../rulebook-status-actions";
 import { RulebookEditor } from "./rulebook-editor";
 
 export const metadata = { title: "Rulebook" };

@@ -3,17 +3,12 @@
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { apiFetch, ApiError } from "@/lib/client/api";
-import {
-  PARAMETER_DEFINITIONS,
-  RULEBOOK_TABLES,
-  RULEBOOK_TABLE_KEYS,
-  validateRulebookTable,
-  type ColumnDefinition,
-  type RulebookContent,
-  type RulebookIssue,
-  type RulebookTableKey,
-} from "@/lib/venting";
-import { csvFileName, parseTableCsv, type CsvRowError } from "@/lib/rulebooks/csv";
+// Straight from the zod-free modules of the engine, so the editor's bundle carries no zod.
+import { PARAMETER_DEFINITIONS } from "@/lib/venting/rulebook/parameters";
+import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "@/lib/venting/rulebook/table-definitions";
+import type { RulebookContent } from "@/lib/venting/rulebook/tables";
+import { validateRulebookTable, type RulebookIssue } from "@/lib/venting/rulebook/validate";
+import type { CsvRowError } from "@/lib/rulebooks/csv";
 
 type Row = Record<string, unknown>;
 type Tables = Record<RulebookTableKey, Row[]>;
@@ -84,7 +79,8 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
 
   const importCsv = async (file: File) => {
     setCsvErrors(null);
-    const text = await file.text();
+    // The CSV reader loads only when someone imports a file; most visits just read the tables.
+    const [text, { parseTableCsv }] = await Promise.all([file.text(), import("@/lib/rulebooks/csv")]);
     const result = parseTableCsv(active, text);
     if (!result.ok) {
       setCsvErrors(result.errors);
@@ -125,7 +121,8 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
             ))}
           </select>
         </div>
-        <a className="btn-secondary" href={`/api/rulebooks/${rulebookId}/versions/${versionNumber}/csv/${active}`} download={`v${versionNumber}-${csvFileName(active)}`}>
+        <a className="btn-secondary" href={`/api/rulebooks/${rulebookId}/versions/${versionNumber}/csv/${active}`} download>
+          {/* The file name comes from the export's Content-Disposition. */}
           Export CSV
         </a>
         {canEdit ? (
@@ -215,7 +212,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                         >
                           {(column.options ?? []).map((o) => (
                             <option key={o} value={o}>
-                              {active === "parameters" && column.key === "key" ? `${o}` : o}
+                              {o}
                             </option>
                           ))}
                         </select>
