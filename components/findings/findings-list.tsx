@@ -1,5 +1,6 @@
 import type { Comparator, Finding, FindingStatus } from "@/lib/venting";
-import { formatNumber } from "@/lib/venting";
+// The number formatter alone, not the engine's index (which brings zod into the browser).
+import { fmt as formatNumber } from "@/lib/venting/format";
 import { FindingStatusChip } from "./finding-status";
 
 const ORDER: Record<FindingStatus, number> = { fail: 0, "needs-info": 1, warn: 2, pass: 3 };

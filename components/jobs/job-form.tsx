@@ -1,16 +1,42 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useQueryClient } from "@tanstack/react-query";
-import { withQueryClient } from "@/components/query-client";
+import { useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
-import { apiFetch, ApiError } from "@/lib/client/api";
-import { JOB_STATUSES, JOB_STATUS_LABELS, jobFormSchema, type JobFormInput, type JobFormValues } from "@/lib/schemas/job";
+import { useServerForm } from "@/components/ui/use-server-form";
+import { apiFetch } from "@/lib/client/api";
+import { JOB_STATUSES, JOB_STATUS_LABELS, type JobStatus } from "@/lib/schemas/job-values";
 
-type FieldName = keyof JobFormInput;
+const FIELDS = [
+  "customerName",
+  "customerPhone",
+  "customerEmail",
+  "siteStreet",
+  "siteCity",
+  "siteRegion",
+  "sitePostalCode",
+  "status",
+  "assignedInstallerId",
+  "scheduledFor",
+  "notes",
+] as const;
+type FieldName = (typeof FIELDS)[number];
+const TEXT_FIELDS = FIELDS.filter((f) => f !== "status" && f !== "assignedInstallerId");
+
+/** The values a job form starts from (what the job holds, or a new job's defaults). */
+export interface JobFormStart {
+  customerName: string;
+  customerPhone: string;
+  customerEmail: string;
+  siteStreet: string;
+  siteCity: string;
+  siteRegion: string;
+  sitePostalCode: string;
+  status: JobStatus;
+  assignedInstallerId: number | null;
+  scheduledFor: string;
+  notes: string;
+}
 
 export interface AssignableMember {
   id: number;
@@ -19,10 +45,11 @@ export interface AssignableMember {
 }
 
 /**
- * Create or edit a job. The same zod schema checks the fields here and in the route handler;
- * server field errors land beside their fields.
+ * Create or edit a job. `jobFormSchema` checks it in the route handler, and its messages come back
+ * beside their fields (useServerForm): the page carries no schema or form library. After a save
+ * the fields show the job as stored (trimmed, the e-mail in lower case).
  */
-function JobFormView({
+export function JobForm({
   mode,
   jobId,
   version,
@@ -34,89 +61,77 @@ function JobFormView({
   mode: "create" | "edit";
   jobId?: number;
   version?: number;
-  initialValues?: Partial<JobFormValues>;
+  initialValues?: Partial<JobFormStart>;
   members: AssignableMember[];
   canAssign: boolean;
   currentUserId: number;
 }) {
   const router = useRouter();
-  const queryClient = useQueryClient();
-  const [formError, setFormError] = useState<string | null>(null);
+  const form = useServerForm(FIELDS);
   const [saved, setSaved] = useState(false);
   const [currentVersion, setCurrentVersion] = useState(version ?? 1);
-  const {
-    register,
-    handleSubmit,
-    setError,
-    formState: { errors, isSubmitting, isDirty },
-    reset,
-  } = useForm<JobFormInput, unknown, JobFormValues>({
-    resolver: zodResolver(jobFormSchema),
-    defaultValues: {
-      customerName: "",
-      customerPhone: "",
-      customerEmail: "",
-      siteStreet: "",
-      siteCity: "",
-      siteRegion: "",
-      sitePostalCode: "",
-      status: "scheduled",
-      assignedInstallerId: mode === "create" && !canAssign ? currentUserId : null,
-      scheduledFor: "",
-      notes: "",
-      ...initialValues,
-    },
-  });
+  const start: JobFormStart = {
+    customerName: "",
+    customerPhone: "",
+    customerEmail: "",
+    siteStreet: "",
+    siteCity: "",
+    siteRegion: "",
+    sitePostalCode: "",
+    status: "scheduled",
+    assignedInstallerId: mode === "create" && !canAssign ? currentUserId : null,
+    scheduledFor: "",
+    notes: "",
+    ...initialValues,
+  };
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const element = event.currentTarget;
     setSaved(false);
-    try {
-      if (mode === "create") {
-        const result = await apiFetch<{ job: { id: number } }>("/api/jobs", { method: "POST", body: values });
-        await queryClient.invalidateQueries({ queryKey: ["jobs"] });
-        router.push(`/jobs/${result.job.id}`);
-        router.refresh();
-      } else {
-        const result = await apiFetch<{ job: JobFormValues & { version: number } }>(`/api/jobs/${jobId}`, {
-          method: "PUT",
-          body: { ...values, version: currentVersion },
-        });
-        setCurrentVersion(result.job.version);
-        reset(values);
-        setSaved(true);
-        await queryClient.invalidateQueries({ queryKey: ["jobs"] });
-        router.refresh();
-      }
-    } catch (error) {
-      if (error instanceof ApiError) {
-        for (const [field, message] of Object.entries(error.fields)) {
-          setError(field as FieldName, { message });
+    await form.submit(
+      element,
+      async (values) => {
+        const body = {
+          ...values,
+          // A disabled select is not in the form data: who may not assign keeps the job's installer.
+          assignedInstallerId: canAssign ? (values.assignedInstallerId === "" ? null : Number(values.assignedInstallerId)) : start.assignedInstallerId,
+        };
+        if (mode === "create") {
+          const result = await apiFetch<{ job: { id: number } }>("/api/jobs", { method: "POST", body });
+          router.push(`/jobs/${result.job.id}`);
+          router.refresh();
+          return;
         }
-        setFormError(error.message);
-      } else {
-        setFormError("The job could not be saved. Try again.");
-      }
-    }
-  });
+        const result = await apiFetch<{ job: JobFormStart & { version: number } }>(`/api/jobs/${jobId}`, { method: "PUT", body: { ...body, version: currentVersion } });
+        setCurrentVersion(result.job.version);
+        for (const name of TEXT_FIELDS) {
+          const input = element.elements.namedItem(name) as HTMLInputElement | HTMLTextAreaElement | null;
+          if (input) input.value = result.job[name] ?? "";
+        }
+        setSaved(true);
+        router.refresh();
+      },
+      { failure: "The job could not be saved. Try again." },
+    );
+  }
 
   const text = (name: FieldName, label: string, options: { type?: string; autoComplete?: string; inputMode?: "text" | "tel" | "email"; hint?: string; className?: string } = {}) => (
-    <Field id={`job-${name}`} label={label} error={errors[name]?.message} hint={options.hint} className={options.className}>
+    <Field id={`job-${name}`} label={label} error={form.errors[name]} hint={options.hint} className={options.className}>
       <input
-        id={`job-${name}`}
         type={options.type ?? "text"}
         inputMode={options.inputMode}
         autoComplete={options.autoComplete ?? "off"}
         className="input"
-        aria-invalid={errors[name] ? true : undefined}
-        aria-describedby={`job-${name}-error`}
-        {...register(name)}
+        defaultValue={String(start[name] ?? "")}
+        {...form.fieldProps(name, `job-${name}`)}
       />
     </Field>
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label={mode === "create" ? "New job" : "Edit job"}>
+    // Any edit after a save hides "Saved." until the next one.
+    <form method="post" onSubmit={onSubmit} onInput={() => setSaved(false)} noValidate className="space-y-5" aria-label={mode === "create" ? "New job" : "Edit job"}>
       <fieldset className="card grid gap-4 p-4 sm:grid-cols-2">
         <legend className="px-1 text-sm font-bold uppercase tracking-wide text-ink-500">Customer</legend>
         {text("customerName", "Customer name", { autoComplete: "name", className: "sm:col-span-2" })}
@@ -134,8 +149,8 @@ function JobFormView({
 
       <fieldset className="card grid gap-4 p-4 sm:grid-cols-2">
         <legend className="px-1 text-sm font-bold uppercase tracking-wide text-ink-500">Work</legend>
-        <Field id="job-status" label="Status" error={errors.status?.message}>
-          <select id="job-status" className="input" aria-describedby="job-status-error" {...register("status")}>
+        <Field id="job-status" label="Status" error={form.errors.status}>
+          <select className="input" defaultValue={start.status} {...form.fieldProps("status", "job-status")}>
             {JOB_STATUSES.map((s) => (
               <option key={s} value={s}>
                 {JOB_STATUS_LABELS[s]}
@@ -146,16 +161,10 @@ function JobFormView({
         <Field
           id="job-assignedInstallerId"
           label="Assigned installer"
-          error={errors.assignedInstallerId?.message}
+          error={form.errors.assignedInstallerId}
           hint={canAssign ? undefined : "A supervisor or admin assigns jobs."}
         >
-          <select
-            id="job-assignedInstallerId"
-            className="input"
-            disabled={!canAssign}
-            aria-describedby="job-assignedInstallerId-error"
-            {...register("assignedInstallerId", { setValueAs: (v) => (v === "" || v === null || v === undefined ? null : Number(v)) })}
-          >
+          <select className="input" disabled={!canAssign} defaultValue={start.assignedInstallerId ?? ""} {...form.fieldProps("assignedInstallerId", "job-assignedInstallerId")}>
             <option value="">Unassigned</option>
             {members.map((m) => (
               <option key={m.id} value={m.id}>
@@ -165,23 +174,23 @@ function JobFormView({
           </select>
         </Field>
         {text("scheduledFor", "Visit date", { type: "date", hint: "YYYY-MM-DD" })}
-        <Field id="job-notes" label="Notes" error={errors.notes?.message} className="sm:col-span-2">
-          <textarea id="job-notes" rows={4} className="input" aria-describedby="job-notes-error" {...register("notes")} />
+        <Field id="job-notes" label="Notes" error={form.errors.notes} className="sm:col-span-2">
+          <textarea rows={4} className="input" defaultValue={start.notes} {...form.fieldProps("notes", "job-notes")} />
         </Field>
       </fieldset>
 
       <div aria-live="polite" className="space-y-2">
-        {formError ? (
+        {form.formError ? (
           <p role="alert" className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">
-            {formError}
+            {form.formError}
           </p>
         ) : null}
-        {saved && !isDirty ? <p className="rounded-md bg-pass-soft px-3 py-2 text-sm font-medium text-pass">Saved.</p> : null}
+        {saved ? <p className="rounded-md bg-pass-soft px-3 py-2 text-sm font-medium text-pass">Saved.</p> : null}
       </div>
 
       <div className="flex flex-wrap gap-3">
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>
-          {isSubmitting ? "Saving…" : mode === "create" ? "Create job" : "Save changes"}
+        <button type="submit" className="btn-primary" disabled={form.submitting}>
+          {form.submitting ? "Saving…" : mode === "create" ? "Create job" : "Save changes"}
         </button>
         {mode === "create" ? (
           <button type="button" className="btn-secondary" onClick={() => router.back()}>
@@ -192,5 +201,3 @@ function JobFormView({
     </form>
   );
 }
-
-export const JobForm = withQueryClient(JobFormView);

@@ -17,3 +17,10 @@ export const EMAIL_MIN_LENGTH = 3;
 export const EMAIL_MAX_LENGTH = 254;
 /** Characters, not bytes: a sign-in attempt is refused before hashing when longer. */
 export const SIGN_IN_PASSWORD_MAX_LENGTH = 1000;
+
+export const CHANGE_PASSWORD_MESSAGES = {
+  currentMissing: "Enter your current password.",
+  newMissing: "Enter a new password.",
+  confirmMissing: "Repeat the new password.",
+  differ: "The two new passwords differ.",
+} as const;

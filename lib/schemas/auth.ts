@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { emailSchema } from "./common";
-import { PASSWORD_MESSAGES, SIGN_IN_PASSWORD_MAX_LENGTH } from "./auth-messages";
+import { CHANGE_PASSWORD_MESSAGES, PASSWORD_MESSAGES, SIGN_IN_PASSWORD_MAX_LENGTH } from "./auth-messages";
 import { PASSWORD_MAX_BYTES } from "@/lib/auth/password-policy";
 
 export const signInSchema = z.object({
@@ -11,11 +11,11 @@ export type SignInInput = z.infer<typeof signInSchema>;
 
 export const changePasswordSchema = z
   .object({
-    currentPassword: z.string().min(1, "Enter your current password.").max(1000),
-    newPassword: z.string().min(1, "Enter a new password.").max(1000),
-    confirmPassword: z.string().min(1, "Repeat the new password.").max(1000),
+    currentPassword: z.string().min(1, CHANGE_PASSWORD_MESSAGES.currentMissing).max(1000),
+    newPassword: z.string().min(1, CHANGE_PASSWORD_MESSAGES.newMissing).max(1000),
+    confirmPassword: z.string().min(1, CHANGE_PASSWORD_MESSAGES.confirmMissing).max(1000),
   })
-  .refine((v) => v.newPassword === v.confirmPassword, { path: ["confirmPassword"], message: "The two new passwords differ." })
+  .refine((v) => v.newPassword === v.confirmPassword, { path: ["confirmPassword"], message: CHANGE_PASSWORD_MESSAGES.differ })
   .refine((v) => new TextEncoder().encode(v.newPassword).length <= PASSWORD_MAX_BYTES, {
     path: ["newPassword"],
     message: `Use at most ${PASSWORD_MAX_BYTES} bytes.`,

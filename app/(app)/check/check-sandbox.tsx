@@ -1,8 +1,6 @@
 "use client";
 
 import { useState } from "react";
-import { useMutation } from "@tanstack/react-query";
-import { withQueryClient } from "@/components/query-client";
 import { FindingsList } from "@/components/findings/findings-list";
 import { ErrorState } from "@/components/ui/states";
 import { apiFetch, ApiError } from "@/lib/client/api";
@@ -14,13 +12,11 @@ interface CheckResponse {
   findings: (Finding & { rulebookVersion: string })[];
 }
 
-function CheckSandboxView({ versions, example }: { versions: { versionId: number; label: string; current: boolean }[]; example: string }) {
+export function CheckSandbox({ versions, example }: { versions: { versionId: number; label: string; current: boolean }[]; example: string }) {
   const [text, setText] = useState(example);
   const [versionId, setVersionId] = useState<number | undefined>(versions.find((v) => v.current)?.versionId ?? versions[0]?.versionId);
   const [parseError, setParseError] = useState<string | null>(null);
-  const check = useMutation({
-    mutationFn: (body: unknown) => apiFetch<CheckResponse>("/api/check", { method: "POST", body }),
-  });
+  const [check, setCheck] = useState<{ pending: boolean; data?: CheckResponse; error?: Error }>({ pending: false });
 
   const run = () => {
     setParseError(null);
@@ -31,9 +27,14 @@ function CheckSandboxView({ versions, example }: { versions: { versionId: number
       setParseError(`The JSON could not be read: ${(e as Error).message}`);
       return;
     }
-    check.mutate({ ...(input as object), rulebookVersionId: versionId });
+    setCheck((c) => ({ ...c, pending: true }));
+    apiFetch<CheckResponse>("/api/check", { method: "POST", body: { ...(input as object), rulebookVersionId: versionId } }).then(
+      (data) => setCheck({ pending: false, data }),
+      (error: Error) => setCheck({ pending: false, error }),
+    );
   };
 
+  const result = check.data;
   return (
     <div className="grid gap-6 xl:grid-cols-2">
       <div className="space-y-3">
@@ -56,8 +57,8 @@ function CheckSandboxView({ versions, example }: { versions: { versionId: number
           <textarea id="check-input" className="input h-[28rem] font-mono text-xs" spellCheck={false} value={text} onChange={(e) => setText(e.target.value)} />
         </div>
         <div className="flex gap-2">
-          <button type="button" className="btn-primary" onClick={run} disabled={check.isPending}>
-            {check.isPending ? "Checking…" : "Run check"}
+          <button type="button" className="btn-primary" onClick={run} disabled={check.pending}>
+            {check.pending ? "Checking…" : "Run check"}
           </button>
           <button type="button" className="btn-ghost" onClick={() => setText(example)}>
             Reset example
@@ -70,27 +71,25 @@ function CheckSandboxView({ versions, example }: { versions: { versionId: number
         </h2>
         <div aria-live="polite">
           {parseError ? <ErrorState title="Not valid JSON" message={parseError} /> : null}
-          {check.isError ? (
+          {check.error ? (
             <ErrorState
               title={check.error.message}
               message={check.error instanceof ApiError ? Object.entries(check.error.fields).slice(0, 8).map(([k, m]) => `${k}: ${m}`).join(" · ") : undefined}
             />
           ) : null}
         </div>
-        {check.data ? (
+        {result ? (
           <>
             <p className="text-sm text-ink-700" data-testid="check-summary">
-              Checked against {check.data.rulebook.name}, version {check.data.rulebook.versionNumber}:{" "}
-              {(["fail", "needs-info", "warn", "pass"] as const).map((s) => `${check.data.summary.counts[s] ?? 0} ${s}`).join(", ")}
+              Checked against {result.rulebook.name}, version {result.rulebook.versionNumber}:{" "}
+              {(["fail", "needs-info", "warn", "pass"] as const).map((s) => `${result.summary.counts[s] ?? 0} ${s}`).join(", ")}
             </p>
-            <FindingsList findings={check.data.findings} />
+            <FindingsList findings={result.findings} />
           </>
-        ) : !check.isError && !parseError ? (
+        ) : !check.error && !parseError ? (
           <p className="text-sm text-ink-500">Run the check to see findings.</p>
         ) : null}
       </section>
     </div>
   );
 }
-
-export const CheckSandbox = withQueryClient(CheckSandboxView);

@@ -3,54 +3,36 @@
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
-import { apiFetch, ApiError } from "@/lib/client/api";
+import { useServerForm } from "@/components/ui/use-server-form";
+import { apiFetch } from "@/lib/client/api";
 import { ROLES, ROLE_LABELS } from "@/lib/auth/roles";
 
-type FieldName = "name" | "email" | "role";
-type FieldErrors = Partial<Record<FieldName, string>>;
-const FIELD_NAMES: readonly string[] = ["name", "email", "role"] satisfies FieldName[];
+const FIELDS = ["name", "email", "role"] as const;
 
 /**
- * Adds a member and shows their temporary password once. The form carries no form library and no
- * schema: `memberCreateSchema` checks it on the server and its messages come back per field, so
- * the words are the schema's own and the members page stays light. Nothing typed is cleared
- * unless the member was added.
+ * Adds a member and shows their temporary password once. No form library and no schema in the
+ * browser: `memberCreateSchema` checks the form on the server and its messages come back per
+ * field (see useServerForm). Nothing typed is cleared unless the member was added.
  */
 export function AddMemberForm() {
   const router = useRouter();
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const form = useServerForm(FIELDS);
   const [created, setCreated] = useState<{ email: string; temporaryPassword: string } | null>(null);
-  const [submitting, setSubmitting] = useState(false);
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const form = event.currentTarget;
-    const data = new FormData(form);
-    setErrors({});
-    setFormError(null);
+    const element = event.currentTarget;
     setCreated(null);
-    setSubmitting(true);
-    try {
-      const result = await apiFetch<{ member: { email: string }; temporaryPassword: string }>("/api/members", {
-        method: "POST",
-        body: { name: data.get("name"), email: data.get("email"), role: data.get("role") },
-      });
-      setCreated({ email: result.member.email, temporaryPassword: result.temporaryPassword });
-      form.reset();
-      router.refresh();
-    } catch (error) {
-      if (error instanceof ApiError) {
-        const fromServer: FieldErrors = {};
-        for (const [field, message] of Object.entries(error.fields)) if (FIELD_NAMES.includes(field)) fromServer[field as FieldName] = message;
-        setErrors(fromServer);
-        setFormError(error.message);
-        const first = FIELD_NAMES.find((f) => f in fromServer);
-        if (first) (form.elements.namedItem(first) as HTMLElement | null)?.focus();
-      } else setFormError("The member could not be added.");
-    } finally {
-      setSubmitting(false);
-    }
+    await form.submit(
+      element,
+      async (values) => {
+        const result = await apiFetch<{ member: { email: string }; temporaryPassword: string }>("/api/members", { method: "POST", body: values });
+        setCreated({ email: result.member.email, temporaryPassword: result.temporaryPassword });
+        element.reset();
+        router.refresh();
+      },
+      { failure: "The member could not be added." },
+    );
   }
 
   return (
@@ -59,23 +41,14 @@ export function AddMemberForm() {
         Add a member
       </h2>
       <form method="post" onSubmit={onSubmit} noValidate className="space-y-3">
-        <Field id="member-name" label="Name" error={errors.name}>
-          <input id="member-name" name="name" autoComplete="off" maxLength={200} className="input" aria-invalid={errors.name ? true : undefined} aria-describedby="member-name-error" />
+        <Field id="member-name" label="Name" error={form.errors.name}>
+          <input autoComplete="off" maxLength={200} className="input" {...form.fieldProps("name", "member-name")} />
         </Field>
-        <Field id="member-email" label="E-mail" error={errors.email}>
-          <input
-            id="member-email"
-            name="email"
-            type="email"
-            inputMode="email"
-            autoComplete="off"
-            className="input"
-            aria-invalid={errors.email ? true : undefined}
-            aria-describedby="member-email-error"
-          />
+        <Field id="member-email" label="E-mail" error={form.errors.email}>
+          <input type="email" inputMode="email" autoComplete="off" className="input" {...form.fieldProps("email", "member-email")} />
         </Field>
-        <Field id="member-role" label="Role" error={errors.role}>
-          <select id="member-role" name="role" defaultValue="installer" className="input" aria-describedby="member-role-error">
+        <Field id="member-role" label="Role" error={form.errors.role}>
+          <select defaultValue="installer" className="input" {...form.fieldProps("role", "member-role")}>
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABELS[r]}
@@ -84,10 +57,10 @@ export function AddMemberForm() {
           </select>
         </Field>
         <div aria-live="polite">
-          {formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{formError}</p> : null}
+          {form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}
         </div>
-        <button type="submit" className="btn-primary w-full" disabled={submitting}>
-          {submitting ? "Adding…" : "Add member"}
+        <button type="submit" className="btn-primary w-full" disabled={form.submitting}>
+          {form.submitting ? "Adding…" : "Add member"}
         </button>
       </form>
       {created ? (

@@ -1,10 +1,12 @@
 import { requirePagePermission } from "@/lib/auth/session";
+import { listSiteCheckItems } from "@/lib/data/site-checks";
 import { SiteChecksManager } from "./site-checks-manager";
 
 export const metadata = { title: "Site checks" };
 
 export default async function SiteChecksPage() {
   const member = await requirePagePermission("site_checks.manage");
+  const items = await listSiteCheckItems({ companyId: member.companyId, includeInactive: true });
   return (
     <div className="space-y-4">
       <div>
@@ -14,7 +16,7 @@ export default async function SiteChecksPage() {
           job&apos;s appliances, in this order. Items are never deleted: deactivate one to take it off the list, so earlier answers keep pointing at it.
         </p>
       </div>
-      <SiteChecksManager />
+      <SiteChecksManager initialItems={items} />
     </div>
   );
 }

@@ -1,22 +1,16 @@
 "use client";
 
-import { useState } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { withQueryClient } from "@/components/query-client";
+import { useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
-import { EmptyState, ErrorState, ListSkeleton } from "@/components/ui/states";
-import { apiFetch, ApiError } from "@/lib/client/api";
+import { EmptyState, ErrorState } from "@/components/ui/states";
+import { useServerForm } from "@/components/ui/use-server-form";
+import { apiFetch } from "@/lib/client/api";
 import { SITE_CHECK_APPLIES_TO, SITE_CHECK_APPLIES_TO_LABELS, type SiteCheckAppliesTo } from "@/lib/site-checks";
-import {
-  siteCheckItemCreateSchema,
-  siteCheckItemEditSchema,
-  type SiteCheckItemCreateInput,
-  type SiteCheckItemEditInput,
-} from "@/lib/schemas/site-check";
 
-interface SiteCheckItem {
+/** Fields of the add and edit forms; `siteCheckItemCreateSchema` / `siteCheckItemEditSchema` check them on the server. */
+const ITEM_FIELDS = ["label", "help", "appliesTo"] as const;
+
+export interface SiteCheckItem {
   id: number;
   key: string;
   label: string;
@@ -30,40 +24,50 @@ interface SiteCheckItem {
 
 type ItemsResponse = { items: SiteCheckItem[] };
 
-const QUERY_KEY = ["site-checks", "all"] as const;
-
-function SiteChecksManagerView() {
-  const queryClient = useQueryClient();
-  const items = useQuery({ queryKey: QUERY_KEY, queryFn: () => apiFetch<ItemsResponse>("/api/site-checks?includeInactive=1") });
+/**
+ * The company's site-check list, first drawn from what the page read on the server. Each change
+ * goes to the API and the list is then read again, so it always shows what is stored; a reorder
+ * shows at once and is undone if the server refuses it.
+ */
+export function SiteChecksManager({ initialItems }: { initialItems: SiteCheckItem[] }) {
+  const [items, setItems] = useState(initialItems);
   const [rowError, setRowError] = useState<string | null>(null);
   const [editingId, setEditingId] = useState<number | null>(null);
+  const [busy, setBusy] = useState(false);
 
-  const toggle = useMutation({
-    mutationFn: (args: { id: number; active: boolean }) => apiFetch<{ item: SiteCheckItem }>(`/api/site-checks/${args.id}`, { method: "PATCH", body: { active: args.active } }),
-    onMutate: () => setRowError(null),
-    onError: (error) => setRowError(error.message),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: QUERY_KEY }),
-  });
+  async function reload() {
+    try {
+      setItems((await apiFetch<ItemsResponse>("/api/site-checks?includeInactive=1")).items);
+    } catch (error) {
+      setRowError(`The list could not be read again: ${(error as Error).message}`);
+    }
+  }
 
-  const reorder = useMutation({
-    mutationFn: (ids: number[]) => apiFetch<ItemsResponse>("/api/site-checks/order", { method: "PUT", body: { ids } }),
-    onMutate: async (ids) => {
-      setRowError(null);
-      await queryClient.cancelQueries({ queryKey: QUERY_KEY });
-      const previous = queryClient.getQueryData<ItemsResponse>(QUERY_KEY);
-      if (previous) {
-        const byId = new Map(previous.items.map((item) => [item.id, item]));
-        const next = ids.map((id) => byId.get(id)).filter((item): item is SiteCheckItem => item !== undefined);
-        queryClient.setQueryData<ItemsResponse>(QUERY_KEY, { items: next });
-      }
-      return { previous };
-    },
-    onError: (error, _ids, context) => {
-      if (context?.previous) queryClient.setQueryData(QUERY_KEY, context.previous);
-      setRowError(error.message);
-    },
-    onSuccess: (data) => queryClient.setQueryData(QUERY_KEY, data),
-  });
+  async function change(run: () => Promise<unknown>, undo?: () => void) {
+    setRowError(null);
+    setBusy(true);
+    try {
+      await run();
+    } catch (error) {
+      undo?.();
+      setRowError((error as Error).message);
+    } finally {
+      await reload();
+      setBusy(false);
+    }
+  }
+
+  const toggle = (id: number, active: boolean) => change(() => apiFetch(`/api/site-checks/${id}`, { method: "PATCH", body: { active } }));
+
+  function reorder(ids: number[]) {
+    const previous = items;
+    const byId = new Map(items.map((item) => [item.id, item]));
+    setItems(ids.map((id) => byId.get(id)).filter((item): item is SiteCheckItem => item !== undefined));
+    void change(
+      () => apiFetch<ItemsResponse>("/api/site-checks/order", { method: "PUT", body: { ids } }),
+      () => setItems(previous),
+    );
+  }
 
   function move(list: SiteCheckItem[], index: number, by: -1 | 1) {
     const target = index + by;
@@ -72,10 +76,8 @@ function SiteChecksManagerView() {
     const [moved] = ids.splice(index, 1);
     if (moved === undefined) return;
     ids.splice(target, 0, moved);
-    reorder.mutate(ids);
+    reorder(ids);
   }
-
-  const busy = toggle.isPending || reorder.isPending;
 
   return (
     <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
@@ -84,22 +86,18 @@ function SiteChecksManagerView() {
           Your site-check list
         </h2>
         <div aria-live="polite">{rowError ? <ErrorState title="The change was not saved." message={rowError} /> : null}</div>
-        {items.isPending ? (
-          <ListSkeleton label="Loading site checks" rows={6} />
-        ) : items.isError ? (
-          <ErrorState title="The site-check list could not be loaded." message={items.error.message} onRetry={() => items.refetch()} />
-        ) : items.data.items.length === 0 ? (
+        {items.length === 0 ? (
           <EmptyState title="No site checks yet">Add the first item with the form beside this list.</EmptyState>
         ) : (
           <ol className="space-y-2">
-            {items.data.items.map((item, index, list) => (
+            {items.map((item, index, list) => (
               <li key={item.id} className={`card p-3 ${item.active ? "" : "bg-ink-50 opacity-75"}`} data-testid={`site-check-${item.key}`}>
                 {editingId === item.id ? (
                   <EditItemForm
                     item={item}
                     onDone={(saved) => {
                       setEditingId(null);
-                      if (saved) void queryClient.invalidateQueries({ queryKey: QUERY_KEY });
+                      if (saved) void reload();
                     }}
                   />
                 ) : (
@@ -142,11 +140,11 @@ function SiteChecksManagerView() {
                         Edit
                       </button>
                       {item.active ? (
-                        <button type="button" className="btn-danger" disabled={busy} onClick={() => toggle.mutate({ id: item.id, active: false })} aria-label={`Deactivate “${item.label}”`}>
+                        <button type="button" className="btn-danger" disabled={busy} onClick={() => void toggle(item.id, false)} aria-label={`Deactivate “${item.label}”`}>
                           Deactivate
                         </button>
                       ) : (
-                        <button type="button" className="btn-secondary" disabled={busy} onClick={() => toggle.mutate({ id: item.id, active: true })} aria-label={`Reactivate “${item.label}”`}>
+                        <button type="button" className="btn-secondary" disabled={busy} onClick={() => void toggle(item.id, true)} aria-label={`Reactivate “${item.label}”`}>
                           Reactivate
                         </button>
                       )}
@@ -158,7 +156,7 @@ function SiteChecksManagerView() {
           </ol>
         )}
       </section>
-      <AddItemForm onAdded={() => queryClient.invalidateQueries({ queryKey: QUERY_KEY })} />
+      <AddItemForm onAdded={() => void reload()} />
     </div>
   );
 }
@@ -172,47 +170,34 @@ function AppliesToOptions() {
 }
 
 function EditItemForm({ item, onDone }: { item: SiteCheckItem; onDone: (saved: boolean) => void }) {
-  const [formError, setFormError] = useState<string | null>(null);
-  const {
-    register,
-    handleSubmit,
-    setError,
-    formState: { errors, isSubmitting },
-  } = useForm<SiteCheckItemEditInput>({ resolver: zodResolver(siteCheckItemEditSchema), defaultValues: { label: item.label, help: item.help, appliesTo: item.appliesTo } });
+  const form = useServerForm(ITEM_FIELDS);
   const prefix = `edit-${item.id}`;
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
-    try {
-      await apiFetch(`/api/site-checks/${item.id}`, { method: "PATCH", body: values });
-      onDone(true);
-    } catch (error) {
-      if (error instanceof ApiError) {
-        for (const [field, message] of Object.entries(error.fields)) if (field in values) setError(field as keyof SiteCheckItemEditInput, { message });
-        setFormError(error.message);
-      } else setFormError("The item could not be saved.");
-    }
-  });
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const ok = await form.submit(event.currentTarget, (values) => apiFetch(`/api/site-checks/${item.id}`, { method: "PATCH", body: values }), { failure: "The item could not be saved." });
+    if (ok) onDone(true);
+  }
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label={`Edit “${item.label}”`}>
-      <Field id={`${prefix}-label`} label="What the installer confirms" error={errors.label?.message}>
-        <input id={`${prefix}-label`} className="input" autoFocus aria-invalid={errors.label ? true : undefined} aria-describedby={`${prefix}-label-error`} {...register("label")} />
+    <form method="post" onSubmit={onSubmit} noValidate className="space-y-3" aria-label={`Edit “${item.label}”`}>
+      <Field id={`${prefix}-label`} label="What the installer confirms" error={form.errors.label}>
+        <input className="input" autoFocus defaultValue={item.label} {...form.fieldProps("label", `${prefix}-label`)} />
       </Field>
-      <Field id={`${prefix}-help`} label="Help for the installer" hint="Optional. How to check it, or why it matters." error={errors.help?.message}>
-        <textarea id={`${prefix}-help`} rows={3} className="input" aria-invalid={errors.help ? true : undefined} aria-describedby={`${prefix}-help-error`} {...register("help")} />
+      <Field id={`${prefix}-help`} label="Help for the installer" hint="Optional. How to check it, or why it matters." error={form.errors.help}>
+        <textarea rows={3} className="input" defaultValue={item.help} {...form.fieldProps("help", `${prefix}-help`)} />
       </Field>
-      <Field id={`${prefix}-applies`} label="Applies to" error={errors.appliesTo?.message}>
-        <select id={`${prefix}-applies`} className="input sm:w-auto" {...register("appliesTo")}>
+      <Field id={`${prefix}-applies`} label="Applies to" error={form.errors.appliesTo}>
+        <select className="input sm:w-auto" defaultValue={item.appliesTo} {...form.fieldProps("appliesTo", `${prefix}-applies`)}>
           <AppliesToOptions />
         </select>
       </Field>
-      <div aria-live="polite">{formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{formError}</p> : null}</div>
+      <div aria-live="polite">{form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}</div>
       <div className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>
-          {isSubmitting ? "Saving…" : "Save"}
+        <button type="submit" className="btn-primary" disabled={form.submitting}>
+          {form.submitting ? "Saving…" : "Save"}
         </button>
-        <button type="button" className="btn-ghost" disabled={isSubmitting} onClick={() => onDone(false)}>
+        <button type="button" className="btn-ghost" disabled={form.submitting} onClick={() => onDone(false)}>
           Cancel
         </button>
       </div>
@@ -221,63 +206,54 @@ function EditItemForm({ item, onDone }: { item: SiteCheckItem; onDone: (saved: b
 }
 
 function AddItemForm({ onAdded }: { onAdded: () => void }) {
-  const [formError, setFormError] = useState<string | null>(null);
+  const form = useServerForm(ITEM_FIELDS);
   const [added, setAdded] = useState<string | null>(null);
-  const {
-    register,
-    handleSubmit,
-    setError,
-    reset,
-    formState: { errors, isSubmitting },
-  } = useForm<SiteCheckItemCreateInput>({ resolver: zodResolver(siteCheckItemCreateSchema), defaultValues: { label: "", help: "", appliesTo: "all" } });
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const element = event.currentTarget;
     setAdded(null);
-    try {
-      const result = await apiFetch<{ item: SiteCheckItem }>("/api/site-checks", { method: "POST", body: values });
-      setAdded(result.item.label);
-      reset();
-      onAdded();
-    } catch (error) {
-      if (error instanceof ApiError) {
-        for (const [field, message] of Object.entries(error.fields)) if (field in values) setError(field as keyof SiteCheckItemCreateInput, { message });
-        setFormError(error.message);
-      } else setFormError("The item could not be added.");
-    }
-  });
+    await form.submit(
+      element,
+      async (values) => {
+        const result = await apiFetch<{ item: SiteCheckItem }>("/api/site-checks", { method: "POST", body: values });
+        setAdded(result.item.label);
+        element.reset();
+        onAdded();
+      },
+      { failure: "The item could not be added." },
+    );
+  }
 
   return (
     <section aria-labelledby="add-site-check-title" className="card h-fit space-y-3 p-4">
       <h2 id="add-site-check-title" className="text-base font-bold">
         Add an item
       </h2>
-      <form onSubmit={onSubmit} noValidate className="space-y-3">
-        <Field id="site-check-label" label="What the installer confirms" hint="Phrase it so that “yes” means it is right, e.g. “The flue collar screws are tight”." error={errors.label?.message}>
-          <input id="site-check-label" className="input" aria-invalid={errors.label ? true : undefined} {...register("label")} />
+      <form method="post" onSubmit={onSubmit} noValidate className="space-y-3">
+        <Field id="site-check-label" label="What the installer confirms" hint="Phrase it so that “yes” means it is right, e.g. “The flue collar screws are tight”." error={form.errors.label}>
+          <input className="input" {...form.fieldProps("label", "site-check-label")} />
         </Field>
-        <Field id="site-check-help" label="Help for the installer" hint="Optional. How to check it, or why it matters." error={errors.help?.message}>
-          <textarea id="site-check-help" rows={3} className="input" aria-invalid={errors.help ? true : undefined} {...register("help")} />
+        <Field id="site-check-help" label="Help for the installer" hint="Optional. How to check it, or why it matters." error={form.errors.help}>
+          <textarea rows={3} className="input" {...form.fieldProps("help", "site-check-help")} />
         </Field>
-        <Field id="site-check-applies" label="Applies to" error={errors.appliesTo?.message}>
-          <select id="site-check-applies" className="input" {...register("appliesTo")}>
+        <Field id="site-check-applies" label="Applies to" error={form.errors.appliesTo}>
+          <select className="input" defaultValue="all" {...form.fieldProps("appliesTo", "site-check-applies")}>
             <AppliesToOptions />
           </select>
         </Field>
         <div aria-live="polite">
-          {formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{formError}</p> : null}
+          {form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}
           {added ? (
             <p role="status" className="rounded-md bg-pass-soft px-3 py-2 text-sm font-medium text-pass">
               Added “{added}” at the end of the list.
             </p>
           ) : null}
         </div>
-        <button type="submit" className="btn-primary w-full" disabled={isSubmitting}>
-          {isSubmitting ? "Adding…" : "Add item"}
+        <button type="submit" className="btn-primary w-full" disabled={form.submitting}>
+          {form.submitting ? "Adding…" : "Add item"}
         </button>
       </form>
     </section>
   );
 }
-
-export const SiteChecksManager = withQueryClient(SiteChecksManagerView);
