@@ -19,6 +19,7 @@ import { DEFAULT_SITE_CHECK_ITEMS } from "../lib/site-checks/defaults";
 import { prepareRulebook, type FindingSummary } from "../lib/venting";
 import { inspectionDataSchema, type InspectionData } from "../lib/inspections/data";
 import { evaluateInspectionData, type InspectionFinding } from "../lib/inspections/evaluate";
+import { trigramsOf } from "../lib/search/trigrams";
 import { LARGE_DB_FILE, round, writeResult } from "./support/common";
 
 export const LARGE_JOBS = 10_000;
@@ -120,6 +121,8 @@ async function main() {
 
   const insertJob = db.prepare(`insert into jobs (company_id, reference, customer_name, customer_phone, customer_email, site_street, site_city, site_region, site_postal_code, status, assigned_installer_id, scheduled_for, notes, version, created_by, created_at, updated_at)
     values (@company_id, @reference, @customer_name, @customer_phone, @customer_email, @site_street, @site_city, '', @site_postal_code, @status, @assigned_installer_id, @scheduled_for, @notes, 1, @created_by, @created_at, @updated_at)`);
+  // The search's trigram index, as createJob would write it (lib/data/job-search.ts).
+  const insertTrigram = db.prepare("insert into job_search_trigrams (company_id, trigram, job_id) values (?, ?, ?)");
   const jobIds: number[] = [];
   const insertJobs = db.transaction((from: number, to: number) => {
     for (let n = from; n < to; n++) {
@@ -127,7 +130,7 @@ async function main() {
       const surname = `${pick(SURNAME_HEADS)}${pick(SURNAME_TAILS)}`;
       const customer = rand() < 0.15 ? `${given} and ${pick(GIVEN)} ${surname}` : `${given} ${surname}`;
       const createdDays = int(1, 720);
-      const info = insertJob.run({
+      const row = {
         company_id: company.id,
         reference: `J-${String(existingJobs + n + 1).padStart(4, "0")}`,
         customer_name: customer,
@@ -143,8 +146,10 @@ async function main() {
         created_by: pick(members).id,
         created_at: isoDaysAgo(createdDays),
         updated_at: isoDaysAgo(Math.max(0, createdDays - int(0, 40))),
-      });
-      jobIds.push(Number(info.lastInsertRowid));
+      };
+      const jobId = Number(insertJob.run(row).lastInsertRowid);
+      for (const trigram of trigramsOf([row.customer_name, row.site_street, row.site_city, row.reference])) insertTrigram.run(company.id, trigram, jobId);
+      jobIds.push(jobId);
     }
   });
   for (let from = 0; from < LARGE_JOBS; from += BATCH) insertJobs(from, Math.min(LARGE_JOBS, from + BATCH));

@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
 import bcrypt from "bcryptjs";
+import { indexJobSearch } from "../../lib/data/job-search";
 
 /**
  * Demo data: an invented scenario. Two invented companies in invented towns, so that isolation
@@ -25,6 +26,7 @@ export async function seed(knex: Knex): Promise<void> {
   for (const table of ["site_check_items", "photos", "inspection_comments", "inspections"]) {
     if (await knex.schema.hasTable(table)) await knex(table).del();
   }
+  if (await knex.schema.hasTable("job_search_trigrams")) await knex("job_search_trigrams").del();
   for (const table of ["audit_events", "login_attempts", "sessions", "jobs"]) await knex(table).del();
   if (await knex.schema.hasTable("rulebook_versions")) {
     await knex("companies").update({ default_rulebook_id: null });
@@ -184,4 +186,6 @@ export async function seed(knex: Knex): Promise<void> {
       created_by: otherInstallerId,
     }),
   ]);
+  // The search finds jobs by their trigrams; the seed writes jobs directly, so it indexes them too.
+  await indexJobSearch(knex, (await knex("jobs").select("id")).map((j: { id: number }) => j.id));
 }

@@ -10,6 +10,7 @@ import type { FindingSummary } from "@/lib/venting";
 import type { InspectionListQuery, ReviewSection } from "@/lib/schemas/inspection";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
+import { whereJobTextMatches } from "./job-search";
 import { containsPattern } from "./like";
 import { getCurrentRulebookVersion, getRulebookVersionById } from "./rulebooks";
 import { listSiteCheckItems } from "./site-checks";
@@ -148,12 +149,10 @@ export async function listInspections(args: { companyId: number; query: Inspecti
     if (query.q) {
       const like = containsPattern(query.q);
       // Match the company's jobs and members first (one pass over each, the jobs through their
-      // covering search index), then take their inspections by id: testing the text on every
+      // search trigrams), then take their inspections by id: testing the text on every
       // joined inspection row costs three times as much on a large company.
-      const matchingJobs = db("jobs as sj")
-        .where("sj.company_id", args.companyId)
-        .andWhere((w) => w.whereRaw("sj.customer_name like ? escape '\\'", [like]).orWhereRaw("sj.reference like ? escape '\\'", [like]))
-        .select("sj.id");
+      const matchingJobs = db("jobs as sj").where("sj.company_id", args.companyId).select("sj.id");
+      whereJobTextMatches(db, matchingJobs, { alias: "sj", companyId: args.companyId, text: query.q, columns: ["customer_name", "reference"] });
       const matchingInstallers = db("users as su").where("su.company_id", args.companyId).andWhereRaw("su.name like ? escape '\\'", [like]).select("su.id");
       q.andWhere((w) => w.whereIn("i.job_id", matchingJobs).orWhereIn("i.installer_id", matchingInstallers));
     }

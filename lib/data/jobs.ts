@@ -5,7 +5,7 @@ import { AppError } from "@/lib/errors";
 import type { JobFormValues, JobListQuery, JobStatus, JobUpdateValues } from "@/lib/schemas/job";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
-import { containsPattern } from "./like";
+import { indexJobSearch, whereJobTextMatches } from "./job-search";
 
 export interface Job {
   id: number;
@@ -111,16 +111,7 @@ export async function listJobs(args: { companyId: number; userId: number; query:
     const q = jobsOfCompany(db, args.companyId);
     if (query.status) q.andWhere("j.status", query.status);
     if (query.mine === "1") q.andWhere("j.assigned_installer_id", args.userId);
-    if (query.q) {
-      const like = containsPattern(query.q);
-      q.andWhere((w) =>
-        w
-          .whereRaw("j.customer_name like ? escape '\\'", [like])
-          .orWhereRaw("j.site_street like ? escape '\\'", [like])
-          .orWhereRaw("j.site_city like ? escape '\\'", [like])
-          .orWhereRaw("j.reference like ? escape '\\'", [like]),
-      );
-    }
+    if (query.q) whereJobTextMatches(db, q, { alias: "j", companyId: args.companyId, text: query.q, columns: ["customer_name", "site_street", "site_city", "reference"] });
     return q;
   };
   const countRow = await filtered().count<{ n: number | string }[]>({ n: "*" }).first();
@@ -192,6 +183,7 @@ export async function createJob(args: { companyId: number; actor: AuditActor; va
       .insert({ company_id: args.companyId, reference, ...toColumns(args.values), version: 1, created_by: args.actor.userId, created_at: now, updated_at: now })
       .returning("id");
     const jobId = typeof inserted === "object" ? (inserted as { id: number }).id : (inserted as number);
+    await indexJobSearch(trx, [jobId]);
     await recordAudit(trx, {
       companyId: args.companyId,
       actor: args.actor,
@@ -225,6 +217,7 @@ export async function updateJob(args: { companyId: number; id: number; actor: Au
       .where({ id: args.id, company_id: args.companyId, version: before.version })
       .update({ ...toColumns(values), version: before.version + 1, updated_at: nowIso() });
     if (updated !== 1) throw new AppError("conflict");
+    await indexJobSearch(trx, [args.id]);
     const changed = Object.fromEntries(
       Object.entries(values).filter(([key, value]) => (before as unknown as Record<string, unknown>)[key] !== value),
     );

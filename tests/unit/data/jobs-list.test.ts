@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import type { Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestDatabase, insertCompany } from "@/tests/fixtures/test-db";
@@ -51,6 +52,9 @@ beforeAll(async () => {
   for (let n = 0; n < 5; n++) {
     await db("jobs").insert({ company_id: companyB, reference: `JB-B${n}`, customer_name: `Quillon B${n}`, site_street: "1 Other Way", site_city: "Lowmere", status: "scheduled", created_at: "2026-11-01T00:00:00.000Z", updated_at: "2026-11-02T00:00:00.000Z" });
   }
+  // Written directly, so indexed for the search directly (createJob and updateJob do both).
+  const { indexJobSearch } = await import("@/lib/data/job-search");
+  await indexJobSearch(db, (await db("jobs").select("id")).map((j: { id: number }) => j.id));
 });
 
 afterAll(async () => {
@@ -103,5 +107,71 @@ describe("jobs list search", () => {
   it("treats % and _ in the search as text, not as wildcards", async () => {
     expect((await list("%")).total).toBe(0);
     expect((await list("_")).total).toBe(0);
+  });
+});
+
+describe("search by trigrams gives exactly what a LIKE scan gives", () => {
+  const WORDS = ["Brook", "brook's End", "Zoë Brönte", "ÅSA Öberg", "50% Lane", "under_score Row", "Ashgrove", "Fennick", "Quill", "Rowan Quillfeather", "JB-C0042"];
+  let companyC: number;
+  let actor: { userId: number; name: string };
+
+  beforeAll(async () => {
+    companyC = await insertCompany(db, "Test Heating C");
+    const [user] = await db("users")
+      .insert({ company_id: companyC, email: "c@test.test", name: "C Admin", role: "admin", password_hash: "x", active: true, password_changed_at: "2026-11-01T00:00:00.000Z", created_at: "2026-11-01T00:00:00.000Z", updated_at: "2026-11-01T00:00:00.000Z" })
+      .returning("id");
+    actor = { userId: typeof user === "object" ? (user as { id: number }).id : (user as number), name: "C Admin" };
+    const { jobFormSchema } = await import("@/lib/schemas/job");
+    // Created through createJob, which indexes each job in its own transaction.
+    for (let n = 0; n < 40; n++) {
+      const pick = (k: number) => WORDS[(n * 7 + k * 3) % WORDS.length]!;
+      await data.createJob({ companyId: companyC, actor, values: jobFormSchema.parse({ customerName: `${pick(1)} ${n}`, siteStreet: `${n} ${pick(2)}`, siteCity: pick(3) }) });
+    }
+  });
+
+  /** The LIKE scan the search used before its trigram index: the reference answer. */
+  async function byLikeScan(q: string) {
+    const like = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const rows: { id: number }[] = await db("jobs")
+      .where("company_id", companyC)
+      .andWhere((w) => {
+        for (const c of ["customer_name", "site_street", "site_city", "reference"]) w.orWhereRaw(`${c} like ? escape '\\'`, [like]);
+      })
+      .orderBy([{ column: "updated_at", order: "desc" }, { column: "id", order: "desc" }])
+      .select("id");
+    return rows.map((r) => r.id);
+  }
+
+  it("property: any piece of the stored texts, in any ASCII case, or any string at all", async () => {
+    const texts = (await db("jobs").where("company_id", companyC).select("customer_name", "site_street", "site_city", "reference")).flatMap((r: Record<string, string>) => Object.values(r));
+    const piece = fc.tuple(fc.constantFrom(...texts), fc.nat(), fc.integer({ min: 1, max: 10 }), fc.boolean()).map(([t, a, len, upper]) => {
+      const chars = Array.from(t);
+      const cut = chars.slice(a % chars.length, (a % chars.length) + len).join("");
+      return upper ? cut.toUpperCase() : cut;
+    });
+    await fc.assert(
+      fc.asyncProperty(fc.oneof(piece, fc.string({ maxLength: 6 })), async (q) => {
+        const query = jobListQuerySchema.parse({ q, pageSize: "100" });
+        const result = await data.listJobs({ companyId: companyC, userId: 0, query });
+        const expected = await byLikeScan(query.q);
+        expect(result.total).toBe(expected.length);
+        expect(result.items.map((j) => j.id)).toEqual(expected.slice(0, 100));
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it("an edited job is found by its new name and no longer by its old one", async () => {
+    const { jobUpdateSchema, jobFormSchema } = await import("@/lib/schemas/job");
+    const job = await data.createJob({ companyId: companyC, actor, values: jobFormSchema.parse({ customerName: "Philippa Vantongeren", siteStreet: "3 Moss Row", siteCity: "Fennick" }) });
+    const search = async (q: string) => (await data.listJobs({ companyId: companyC, userId: 0, query: jobListQuerySchema.parse({ q }) })).items.map((j) => j.id);
+    expect(await search("vantongeren")).toEqual([job.id]);
+    await data.updateJob({ companyId: companyC, id: job.id, actor, mayAssign: true, values: jobUpdateSchema.parse({ customerName: "Philippa Marlowe-Oake", siteStreet: "3 Moss Row", siteCity: "Fennick", version: job.version }) });
+    expect(await search("vantongeren")).toEqual([]);
+    expect(await search("marlowe-oake")).toEqual([job.id]);
+    // The trigram table holds this job's current texts only.
+    const grams = (await db("job_search_trigrams").where("job_id", job.id).pluck("trigram")) as string[];
+    expect(grams).toContain("oak");
+    expect(grams).not.toContain("ton");
   });
 });

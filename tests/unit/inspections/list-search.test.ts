@@ -27,10 +27,13 @@ beforeAll(async () => {
     .insert({ company_id: world.a.companyId, reference: "J-0777", customer_name: "Wren Halloway", site_street: "2 Test Lane", site_city: "Testville", status: "scheduled", created_at: now, updated_at: now })
     .returning("id");
   const wrenJobId = typeof wren === "object" ? (wren as { id: number }).id : (wren as number);
+  const { indexJobSearch } = await import("@/lib/data/job-search");
+  await indexJobSearch(db, [wrenJobId]);
   ids.a1 = (await inspections.createInspection({ member: world.a.installer, jobId: world.a.jobId })).id;
   ids.wren = (await inspections.createInspection({ member: world.a.installer, jobId: wrenJobId })).id;
   // Company B's inspection is on a job whose customer shares the search term.
   await db("jobs").where({ id: world.b.jobId }).update({ customer_name: "Wren Otherco" });
+  await indexJobSearch(db, [world.b.jobId]);
   ids.b1 = (await inspections.createInspection({ member: world.b.installer, jobId: world.b.jobId })).id;
 });
 
