@@ -5,7 +5,9 @@ import { useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
 import { useServerForm } from "@/components/ui/use-server-form";
 import { apiFetch } from "@/lib/client/api";
-import { JOB_STATUSES, JOB_STATUS_LABELS, type JobStatus } from "@/lib/schemas/job-values";
+// Types only from the schema module: erased in the build, so zod stays out of the browser.
+import type { JobFormValues } from "@/lib/schemas/job";
+import { JOB_STATUSES, JOB_STATUS_LABELS } from "@/lib/schemas/job-values";
 
 const FIELDS = [
   "customerName",
@@ -22,21 +24,6 @@ const FIELDS = [
 ] as const;
 type FieldName = (typeof FIELDS)[number];
 const TEXT_FIELDS = FIELDS.filter((f) => f !== "status" && f !== "assignedInstallerId");
-
-/** The values a job form starts from (what the job holds, or a new job's defaults). */
-export interface JobFormStart {
-  customerName: string;
-  customerPhone: string;
-  customerEmail: string;
-  siteStreet: string;
-  siteCity: string;
-  siteRegion: string;
-  sitePostalCode: string;
-  status: JobStatus;
-  assignedInstallerId: number | null;
-  scheduledFor: string;
-  notes: string;
-}
 
 export interface AssignableMember {
   id: number;
@@ -61,7 +48,7 @@ export function JobForm({
   mode: "create" | "edit";
   jobId?: number;
   version?: number;
-  initialValues?: Partial<JobFormStart>;
+  initialValues?: Partial<JobFormValues>;
   members: AssignableMember[];
   canAssign: boolean;
   currentUserId: number;
@@ -70,7 +57,7 @@ export function JobForm({
   const form = useServerForm(FIELDS);
   const [saved, setSaved] = useState(false);
   const [currentVersion, setCurrentVersion] = useState(version ?? 1);
-  const start: JobFormStart = {
+  const start: JobFormValues = {
     customerName: "",
     customerPhone: "",
     customerEmail: "",
@@ -103,7 +90,7 @@ export function JobForm({
           router.refresh();
           return;
         }
-        const result = await apiFetch<{ job: JobFormStart & { version: number } }>(`/api/jobs/${jobId}`, { method: "PUT", body: { ...body, version: currentVersion } });
+        const result = await apiFetch<{ job: JobFormValues & { version: number } }>(`/api/jobs/${jobId}`, { method: "PUT", body: { ...body, version: currentVersion } });
         setCurrentVersion(result.job.version);
         for (const name of TEXT_FIELDS) {
           const input = element.elements.namedItem(name) as HTMLInputElement | HTMLTextAreaElement | null;
