@@ -22,6 +22,8 @@ export default defineConfig({
   use: {
     baseURL: `http://localhost:${PORT}`,
     trace: "retain-on-failure",
+    // A click that waits longer than this is stuck (see .ci/run), not slow: fail it and let the retry run.
+    actionTimeout: 30_000,
     screenshot: "only-on-failure",
     launchOptions: {
       executablePath: systemChromium,

@@ -36,6 +36,14 @@ if (buildStatus && buildStatus !== "0") {
     failed += e2e.stats.unexpected ?? 0;
     skipped += e2e.stats.skipped ?? 0;
     if ((e2e.errors ?? []).length) failed += e2e.errors.length;
+    // A test that passed only on its retry counts as passed, but is named, so a flake stays visible.
+    const flaky = [];
+    const walk = (suite, path) => {
+      for (const spec of suite.specs ?? []) for (const t of spec.tests ?? []) if (t.status === "flaky") flaky.push(`[${t.projectName}] ${[...path, spec.title].join(" › ")}`);
+      for (const child of suite.suites ?? []) walk(child, [...path, child.title].filter(Boolean));
+    };
+    for (const suite of e2e.suites ?? []) walk(suite, [suite.title]);
+    for (const title of flaky) console.log(`flaky (failed, then passed on its retry): ${title}`);
   } else {
     console.log(`end-to-end report missing: ${e2ePath}`);
     failed += 1;
