@@ -25,6 +25,24 @@ export async function indexJobSearch(trx: Knex | Knex.Transaction, jobIds: reado
 }
 
 /**
+ * The company's jobs (`jobs as j`), for a query that will search `text`. With `candidatesFirst`,
+ * and a text long enough for trigrams, SQLite reads the trigram candidates one by id instead of
+ * walking the company's index and testing each job: the unary + keeps it from choosing that
+ * index (SQLite docs, "The SQLite Query Optimizer Overview", unary + on a term; PostgreSQL reads
+ * `+x` as `x`). Right for a count and for a few matches; a page of many matches is quicker along
+ * the sorted index, so the caller chooses.
+ */
+export function jobsForTextSearch(db: Knex | Knex.Transaction, args: { companyId: number; text: string; candidatesFirst: boolean }): Knex.QueryBuilder {
+  if (args.candidatesFirst && queryTrigrams(args.text).length > 0) return db("jobs as j").whereRaw("+j.company_id = ?", [args.companyId]);
+  return db("jobs as j").where("j.company_id", args.companyId);
+}
+
+/** True when a search for `text` can use the trigram index (it is at least a trigram long). */
+export function searchUsesTrigrams(text: string): boolean {
+  return queryTrigrams(text).length > 0;
+}
+
+/**
  * Narrows `query` (a builder over `jobs as <alias>`) to the jobs whose `columns` contain `text`,
  * as `LIKE '%text%'` would: by the trigram index first when the text is long enough, then the
  * LIKE itself on those candidates only. `columns` must be among JOB_SEARCH_COLUMNS.

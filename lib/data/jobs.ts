@@ -5,8 +5,7 @@ import { AppError } from "@/lib/errors";
 import type { JobFormValues, JobListQuery, JobStatus, JobUpdateValues } from "@/lib/schemas/job";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
-import { queryTrigrams } from "../search/trigrams";
-import { indexJobSearch, whereJobTextMatches } from "./job-search";
+import { indexJobSearch, jobsForTextSearch, searchUsesTrigrams, whereJobTextMatches } from "./job-search";
 
 export interface Job {
   id: number;
@@ -108,19 +107,15 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   const db = getDb();
   // Filters touch only the jobs table, so the count runs on jobs alone (an index-only count);
   // the installer's name is joined in for the one page of rows.
-  const byTrigrams = Boolean(query.q) && queryTrigrams(query.q).length > 0;
-  // `fromCandidates`: read the jobs the search's trigrams name, one by id, rather than walking
-  // the company's index and testing each (the unary + keeps SQLite from choosing that index;
-  // SQLite docs, "The SQLite Query Optimizer Overview", unary + on a term). Right for a count
-  // and for a few matches; a page of many matches is quicker along the sorted index.
-  const filtered = (options: { fromCandidates?: boolean } = {}) => {
-    const q = options.fromCandidates && byTrigrams ? db("jobs as j").whereRaw("+j.company_id = ?", [args.companyId]) : jobsOfCompany(db, args.companyId);
+  // `candidatesFirst` (see jobsForTextSearch): for the count and for a page of few matches.
+  const filtered = (options: { candidatesFirst?: boolean } = {}) => {
+    const q = query.q ? jobsForTextSearch(db, { companyId: args.companyId, text: query.q, candidatesFirst: options.candidatesFirst ?? false }) : jobsOfCompany(db, args.companyId);
     if (query.status) q.andWhere("j.status", query.status);
     if (query.mine === "1") q.andWhere("j.assigned_installer_id", args.userId);
     if (query.q) whereJobTextMatches(db, q, { alias: "j", companyId: args.companyId, text: query.q, columns: ["customer_name", "site_street", "site_city", "reference"] });
     return q;
   };
-  const countRow = await filtered({ fromCandidates: true }).count<{ n: number | string }[]>({ n: "*" }).first();
+  const countRow = await filtered({ candidatesFirst: true }).count<{ n: number | string }[]>({ n: "*" }).first();
   const total = Number(countRow?.n ?? 0);
   const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
   const page = Math.min(query.page, pageCount);
@@ -132,8 +127,8 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   // or for a one- or two-letter search by one pass over the covering search index) and sort those.
   const rareMatches = Boolean(query.q) && (offset + query.pageSize) * 2 > total;
   const listQuery = rareMatches
-    ? byTrigrams
-      ? withInstallerName(filtered({ fromCandidates: true })).select(JOB_COLUMNS)
+    ? searchUsesTrigrams(query.q)
+      ? withInstallerName(filtered({ candidatesFirst: true })).select(JOB_COLUMNS)
       : baseQuery(db, args.companyId).whereIn("j.id", filtered().select("j.id")).select(JOB_COLUMNS)
     : withInstallerName(filtered()).select(JOB_COLUMNS);
   for (const [column, direction] of SORT_COLUMNS[query.sort]) listQuery.orderBy(column, direction);
