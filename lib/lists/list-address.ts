@@ -25,3 +25,20 @@ export function firstValues(searchParams: Record<string, string | string[] | und
   }
   return values;
 }
+
+/** What a list schema must offer to read an address (any zod object schema does). */
+interface ListQuerySchema<T> {
+  safeParse(value: unknown): { success: true; data: T } | { success: false; error: { issues: readonly { message: string }[] } };
+  parse(value: unknown): T;
+}
+
+/**
+ * A list page's query from its address. An address that does not parse (edited by hand, or from
+ * an older version) falls back to the defaults, and `problem` says what could not be read, so the
+ * page shows the list anyway and tells the user why it is not the one they asked for.
+ */
+export function readListAddress<T>(schema: ListQuerySchema<T>, searchParams: Record<string, string | string[] | undefined>): { query: T; problem: string | null } {
+  const parsed = schema.safeParse(firstValues(searchParams));
+  if (parsed.success) return { query: parsed.data, problem: null };
+  return { query: schema.parse({}), problem: parsed.error.issues[0]?.message ?? "invalid value" };
+}

@@ -2,7 +2,8 @@ import Link from "next/link";
 import { requirePagePermission } from "@/lib/auth/session";
 import { listJobs } from "@/lib/data/jobs";
 import { jobListQuerySchema } from "@/lib/schemas/job";
-import { firstValues, listSearch } from "@/lib/lists/list-address";
+import { listSearch, readListAddress } from "@/lib/lists/list-address";
+import { AddressProblem } from "@/components/ui/address-problem";
 import { JobStatusBadge } from "@/components/jobs/job-status-badge";
 import { EmptyState } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
@@ -16,8 +17,7 @@ type SearchParams = Record<string, string | string[] | undefined>;
 /** The company's jobs, searched, filtered, sorted and paged by the page's address. */
 export default async function JobsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   const member = await requirePagePermission("jobs.read");
-  const parsed = jobListQuerySchema.safeParse(firstValues(await searchParams));
-  const query = parsed.success ? parsed.data : jobListQuerySchema.parse({});
+  const { query, problem } = readListAddress(jobListQuerySchema, await searchParams);
   const result = await listJobs({ companyId: member.companyId, userId: member.userId, query });
   const filters = jobFilterValues(query);
   const filtered = Boolean(query.q || query.status || query.mine === "1");
@@ -35,11 +35,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
       </div>
       <div className="space-y-3">
         <JobsFilters current={filters} />
-        {parsed.success ? null : (
-          <p role="status" className="rounded-lg border border-warn/30 bg-warn-soft px-3 py-2 text-sm text-ink-800">
-            Some filters in this address could not be read ({parsed.error.issues[0]?.message ?? "invalid value"}), so the full list is shown.
-          </p>
-        )}
+        <AddressProblem problem={problem} shown="the full list is" />
         {result.items.length === 0 ? (
           <EmptyState title={filtered ? "No jobs match" : "No jobs yet"}>
             {filtered ? "Change the search or the filters." : <Link href="/jobs/new" className="font-semibold text-copper-700 underline">Create the first job</Link>}

@@ -2,7 +2,8 @@ import Link from "next/link";
 import { requirePagePermission } from "@/lib/auth/session";
 import { listInspections, type InspectionSummaryRow } from "@/lib/data/inspections";
 import { inspectionListQuerySchema, type InspectionListQuery } from "@/lib/schemas/inspection";
-import { firstValues, listSearch } from "@/lib/lists/list-address";
+import { listSearch, readListAddress } from "@/lib/lists/list-address";
+import { AddressProblem } from "@/components/ui/address-problem";
 import { InspectionStatusBadge } from "@/components/inspection/inspection-status-badge";
 import { EmptyState } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
@@ -36,8 +37,7 @@ function findingCounts(row: InspectionSummaryRow): string {
 /** Submitted inspections (by default), searched, filtered, sorted and paged by the page's address. */
 export default async function ReviewPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   const member = await requirePagePermission("inspections.review");
-  const parsed = inspectionListQuerySchema.safeParse(firstValues(await searchParams));
-  const query: InspectionListQuery = parsed.success ? parsed.data : inspectionListQuerySchema.parse({});
+  const { query, problem } = readListAddress<InspectionListQuery>(inspectionListQuerySchema, await searchParams);
   const result = await listInspections({ companyId: member.companyId, query });
   const filters = reviewFilterValues(query);
   const address = (values: ReviewFilterValues, page = 1) => `/review${listSearch(values, REVIEW_FILTER_DEFAULTS, page)}`;
@@ -64,11 +64,7 @@ export default async function ReviewPage({ searchParams }: { searchParams: Promi
       </div>
       <div className="space-y-3">
         <ReviewFilters current={filters} />
-        {parsed.success ? null : (
-          <p role="status" className="rounded-lg border border-warn/30 bg-warn-soft px-3 py-2 text-sm text-ink-800">
-            Some filters in this address could not be read ({parsed.error.issues[0]?.message ?? "invalid value"}), so the inspections awaiting review are shown.
-          </p>
-        )}
+        <AddressProblem problem={problem} shown="the inspections awaiting review are" />
         {result.items.length === 0 ? (
           <EmptyState title={query.status === "submitted" && !query.q ? "Nothing waiting for review" : "No inspections match"} />
         ) : (

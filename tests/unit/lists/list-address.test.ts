@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { firstValues, listSearch } from "@/lib/lists/list-address";
+import { firstValues, listSearch, readListAddress } from "@/lib/lists/list-address";
 import { jobListQuerySchema } from "@/lib/schemas/job";
 
 const defaults = { q: "", status: "", sort: "updated_desc", mine: "0" };
@@ -24,5 +24,14 @@ describe("list addresses", () => {
 
   it("takes the first of repeated parameters and skips missing ones", () => {
     expect(firstValues({ q: ["a", "b"], status: undefined, sort: "customer_asc" })).toEqual({ q: "a", sort: "customer_asc" });
+  });
+});
+
+describe("readListAddress", () => {
+  it("a readable address gives its query and no problem; an unreadable one the defaults and the schema's message", () => {
+    expect(readListAddress(jobListQuerySchema, { q: ["brook", "ignored"], status: "completed" })).toMatchObject({ query: { q: "brook", status: "completed", page: 1 }, problem: null });
+    const bad = readListAddress(jobListQuerySchema, { q: "x".repeat(101), status: "completed" });
+    expect(bad.query).toEqual(jobListQuerySchema.parse({}));
+    expect(bad.problem).toBe("Search for at most 100 characters.");
   });
 });
