@@ -39,10 +39,10 @@ export const approveSchema = z.object({
 });
 
 export const inspectionListQuerySchema = z.object({
-  status: z.enum(["submitted", "returned", "draft", "approved", "all"]).default("submitted"),
-  q: z.string().trim().max(100).default(""),
-  sort: z.enum(INSPECTION_QUEUE_SORTS).default("submitted_asc"),
-  page: z.coerce.number().int().min(1).max(100_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  status: z.enum(["submitted", "returned", "draft", "approved", "all"], { error: "The status must be one of submitted, returned, draft, approved or all." }).default("submitted"),
+  q: z.string().trim().max(100, "Search for at most 100 characters.").default(""),
+  sort: z.enum(INSPECTION_QUEUE_SORTS, { error: `The sort must be one of ${INSPECTION_QUEUE_SORTS.join(", ")}.` }).default("submitted_asc"),
+  page: z.coerce.number({ error: "The page must be a whole number from 1." }).int("The page must be a whole number from 1.").min(1, "The page must be a whole number from 1.").max(100_000, "The page can be at most 100,000.").default(1),
+  pageSize: z.coerce.number({ error: "The page size must be a whole number from 1 to 100." }).int("The page size must be a whole number from 1 to 100.").min(1, "The page size must be a whole number from 1 to 100.").max(100, "The page size must be a whole number from 1 to 100.").default(20),
 });
 export type InspectionListQuery = z.output<typeof inspectionListQuerySchema>;

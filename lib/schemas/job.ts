@@ -42,10 +42,10 @@ export type JobUpdateValues = z.output<typeof jobUpdateSchema>;
 
 export const jobListQuerySchema = z.object({
   q: z.string().trim().max(100, "Search for at most 100 characters.").default(""),
-  status: z.union([z.enum(JOB_STATUSES), z.literal("")]).default(""),
-  sort: z.enum(JOB_SORTS).default("updated_desc"),
-  page: z.coerce.number().int().min(1).max(100_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
-  mine: z.enum(["0", "1"]).default("0"),
+  status: z.union([z.enum(JOB_STATUSES), z.literal("")], { error: `The status must be one of ${JOB_STATUSES.join(", ")}, or left out for all.` }).default(""),
+  sort: z.enum(JOB_SORTS, { error: `The sort must be one of ${JOB_SORTS.join(", ")}.` }).default("updated_desc"),
+  page: z.coerce.number({ error: "The page must be a whole number from 1." }).int("The page must be a whole number from 1.").min(1, "The page must be a whole number from 1.").max(100_000, "The page can be at most 100,000.").default(1),
+  pageSize: z.coerce.number({ error: "The page size must be a whole number from 1 to 100." }).int("The page size must be a whole number from 1 to 100.").min(1, "The page size must be a whole number from 1 to 100.").max(100, "The page size must be a whole number from 1 to 100.").default(20),
+  mine: z.enum(["0", "1"], { error: "Assigned to me is 1 (yes) or 0 (no)." }).default("0"),
 });
 export type JobListQuery = z.output<typeof jobListQuerySchema>;

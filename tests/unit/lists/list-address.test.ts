@@ -34,4 +34,10 @@ describe("readListAddress", () => {
     expect(bad.query).toEqual(jobListQuerySchema.parse({}));
     expect(bad.problem).toBe("Search for at most 100 characters.");
   });
+
+  it("every unreadable filter is named with what it may be", () => {
+    expect(readListAddress(jobListQuerySchema, { status: "nope" }).problem).toBe("The status must be one of scheduled, in_progress, awaiting_review, completed, cancelled, or left out for all.");
+    expect(readListAddress(jobListQuerySchema, { page: "two" }).problem).toBe("The page must be a whole number from 1.");
+    expect(readListAddress(jobListQuerySchema, { mine: "yes" }).problem).toBe("Assigned to me is 1 (yes) or 0 (no).");
+  });
 });
