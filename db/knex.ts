@@ -1,5 +1,6 @@
 import knexFactory, { type Knex } from "knex";
 import { buildKnexConfig } from "./config";
+import { readOnSeparateConnection } from "./sqlite-reader";
 
 /**
  * The app's one Knex instance. Only lib/data uses it. Cached on globalThis so that `next dev`'s
@@ -11,7 +12,9 @@ export function getDb(): Knex {
   if (!globalForKnex.fluewardKnex) {
     const config = buildKnexConfig();
     if (config.client === "better-sqlite3") beginSqliteTransactionsImmediately();
-    globalForKnex.fluewardKnex = knexFactory(config);
+    const db = knexFactory(config);
+    if (config.client === "better-sqlite3") readOnSeparateConnection(db, (config.connection as Knex.BetterSqlite3ConnectionConfig).filename);
+    globalForKnex.fluewardKnex = db;
   }
   return globalForKnex.fluewardKnex;
 }
