@@ -32,8 +32,10 @@ declare module "autocannon" {
     path?: string;
     headers?: Record<string, string>;
     body?: string;
-    /** Called before each request is sent; may change and return it. */
-    setupRequest?: (request: Request) => Request;
+    /** Called before each request is sent, with the connection's context; may change and return it. */
+    setupRequest?: (request: Request, context: Record<string, unknown>) => Request;
+    /** Called when its answer has arrived, with the same context, just before the "response" event. */
+    onResponse?: (status: number, body: string, context: Record<string, unknown>) => void;
   }
   interface Options {
     url: string;
@@ -55,5 +57,5 @@ declare module "autocannon" {
   function autocannon(options: Options): Promise<Result>;
   function autocannon(options: Options, done: (error: Error | null, result: Result) => void): Instance;
   export default autocannon;
-  export type { Result, Options, Instance };
+  export type { Result, Options, Instance, Request };
 }
