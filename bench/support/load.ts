@@ -1,6 +1,6 @@
 /** Running one autocannon cell and reducing its result to the figures the reports use. */
 import autocannon, { type Options, type Request, type Result } from "autocannon";
-import { round } from "./common";
+import { median, round } from "./common";
 
 export interface Cell {
   connections: number;
@@ -205,12 +205,6 @@ export async function runInterleaved(options: {
       statusCodes,
     };
   };
-  const median = (values: number[]) => {
-    const sorted = [...values].sort((a, b) => a - b);
-    const mid = sorted.length / 2;
-    return sorted.length % 2 ? sorted[Math.floor(mid)]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
-  };
-
   const ceilingIndexes = measured.map((t, i) => (t === ceiling ? i : -1)).filter((i) => i >= 0);
   const byTarget = new Map<string, PairedCell>();
   for (const target of targets) {
