@@ -3,7 +3,7 @@ export function AddressProblem({ problem, shown }: { problem: string | null; sho
   if (!problem) return null;
   return (
     <p role="status" className="rounded-lg border border-warn/30 bg-warn-soft px-3 py-2 text-sm text-ink-800">
-      Some filters in this address could not be read ({problem}), so {shown} shown.
+      Some filters in this address could not be read, so {shown} shown. {problem}
     </p>
   );
 }
