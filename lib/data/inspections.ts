@@ -10,7 +10,7 @@ import type { FindingSummary } from "@/lib/venting";
 import type { InspectionListQuery, ReviewSection } from "@/lib/schemas/inspection";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
-import { whereJobTextMatches } from "./job-search";
+import { candidateJobs, planJobTextSearch, whereJobTextMatches } from "./job-search";
 import { containsPattern } from "./like";
 import { getCurrentRulebookVersion, getRulebookVersionById } from "./rulebooks";
 import { listSiteCheckItems } from "./site-checks";
@@ -144,17 +144,22 @@ export async function listInspections(args: { companyId: number; query: Inspecti
     if (query.status !== "all") q.andWhere("i.status", query.status);
     return q;
   };
+  const jobPlan = query.q ? await planJobTextSearch(db, { companyId: args.companyId, text: query.q }) : null;
   const filtered = () => {
     const q = byStatus(summaryQuery(db, args.companyId));
     if (query.q) {
       const like = containsPattern(query.q);
-      // Match the company's jobs and members first (one pass over each, the jobs through their
-      // search trigrams), then take their inspections by id: testing the text on every
+      // Match the company's jobs and members first (the jobs through their search trigrams, the
+      // members in one pass), then take their inspections by id: testing the text on every
       // joined inspection row costs three times as much on a large company.
-      const matchingJobs = db("jobs as sj").where("sj.company_id", args.companyId).select("sj.id");
-      whereJobTextMatches(db, matchingJobs, { alias: "sj", companyId: args.companyId, text: query.q, columns: ["customer_name", "reference"] });
       const matchingInstallers = db("users as su").where("su.company_id", args.companyId).andWhereRaw("su.name like ? escape '\\'", [like]).select("su.id");
-      q.andWhere((w) => w.whereIn("i.job_id", matchingJobs).orWhereIn("i.installer_id", matchingInstallers));
+      if (jobPlan?.kind === "none") {
+        q.whereIn("i.installer_id", matchingInstallers);
+      } else {
+        const matchingJobs = jobPlan?.kind === "trigram" ? candidateJobs(db, { companyId: args.companyId, plan: jobPlan, alias: "sj" }) : db("jobs as sj").where("sj.company_id", args.companyId);
+        whereJobTextMatches(matchingJobs, { alias: "sj", text: query.q, columns: ["customer_name", "reference"] });
+        q.andWhere((w) => w.whereIn("i.job_id", matchingJobs.select("sj.id")).orWhereIn("i.installer_id", matchingInstallers));
+      }
     }
     return q;
   };

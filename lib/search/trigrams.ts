@@ -1,9 +1,9 @@
 /**
  * Trigrams for the job search, as a plain B-tree can hold them: `LIKE '%brook%'` cannot seek an
  * index, but every text containing "brook" contains its trigrams "bro", "roo" and "ook", and a
- * table of (trigram, job) pairs finds the jobs holding all three by index. Those candidates are
- * then tested with the same LIKE, so the result is exactly what the LIKE scan would give, only
- * without reading every job.
+ * table of (trigram, job) pairs finds the jobs holding any one of them by index (the search takes
+ * the rarest). Those candidates are then tested with the same LIKE, so the result is exactly what
+ * the LIKE scan would give, only without reading every job.
  *
  * Pure and portable (no SQL dialect): SQLite's FTS5 or PostgreSQL's pg_trgm would do the same
  * inside the database, each in its own dialect.

@@ -94,6 +94,20 @@ describe("jobs list search", () => {
     expect(result.items.length).toBeGreaterThan(0);
   });
 
+  // Matches above 20 × the page's end: the search walks the sorted jobs instead of sorting its
+  // candidates (listJobs). Both ways must give the plain filter's answer.
+  it.each([
+    ["common matches walked, first page", "brook", 1, 4],
+    ["common matches walked, a later page", "brook", 3, 1],
+    ["a city walked", "lowmere", 2, 5],
+  ])("%s: the same jobs as a plain filter and sort", async (_label, q, page, pageSize) => {
+    const result = await list(q, page, pageSize);
+    const expected = expectedPage(q, page, pageSize);
+    expect(expected.total).toBeGreaterThanOrEqual(page * pageSize * 20);
+    expect(result.total).toBe(expected.total);
+    expect(result.items.map((j) => j.id)).toEqual(expected.ids);
+  });
+
   it("finds the three rare matches of this company only, newest first", async () => {
     const result = await list("Quillon");
     expect(result.items.map((j) => j.customerName).sort()).toEqual(["Quillon 152", "Quillon 293", "Quillon 7"]);
