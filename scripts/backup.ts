@@ -2,10 +2,13 @@
  * Online backup of the SQLite database and the uploads folder, safe while the app runs:
  *   npx tsx scripts/backup.ts [--db <file>] [--uploads <dir>] [--out <backups folder>]
  * Defaults: FLUEWARD_DB_FILE or data/flueward.sqlite, FLUEWARD_UPLOADS_DIR or data/uploads,
- * backups/. Writes backups/<timestamp>/{flueward.sqlite, uploads/, manifest.json}.
+ * backups/. Writes backups/<timestamp>/{flueward.sqlite, uploads/, manifest.json}. With
+ * STORAGE_DRIVER=s3 (and no --uploads), every photo and record PDF the database names is fetched
+ * from the bucket into uploads/.
  */
 import path from "node:path";
 import { POSTGRES_MESSAGE, createBackup, usesPostgres } from "../lib/ops/backup";
+import { createS3Storage, s3OptionsFromEnv } from "../lib/storage/s3";
 
 function option(args: string[], name: string): string | undefined {
   const index = args.indexOf(name);
@@ -29,10 +32,16 @@ async function main(): Promise<number> {
   const dbFile = option(args, "--db") ?? process.env.FLUEWARD_DB_FILE ?? path.join(cwd, "data", "flueward.sqlite");
   const driver = (process.env.STORAGE_DRIVER ?? "disk").toLowerCase();
   const uploadsDir = option(args, "--uploads") ?? (driver === "disk" ? (process.env.FLUEWARD_UPLOADS_DIR ?? path.join(cwd, "data", "uploads")) : null);
-  if (!uploadsDir) console.warn(`[backup] STORAGE_DRIVER=${driver}: photos and records live in the bucket and are not copied (keep bucket versioning on).`);
+  let blobSource: { storage: ReturnType<typeof createS3Storage>; description: string } | undefined;
+  if (!uploadsDir) {
+    if (driver !== "s3") throw new Error(`STORAGE_DRIVER=${driver} keeps no blobs a backup can read: use disk or s3.`);
+    const s3 = s3OptionsFromEnv(process.env);
+    blobSource = { storage: createS3Storage(s3), description: `s3://${s3.bucket}` };
+    console.log(`[backup] fetching every photo and record PDF the database names from ${blobSource.description}`);
+  }
   const backupsRoot = option(args, "--out") ?? path.join(cwd, "backups");
 
-  const { dir, manifest } = await createBackup({ dbFile, uploadsDir, backupsRoot });
+  const { dir, manifest } = await createBackup({ dbFile, uploadsDir, blobSource, backupsRoot });
   const mb = (bytes: number) => `${(bytes / 1_000_000).toFixed(2)} MB`;
   console.log(`[backup] ${dir}`);
   console.log(`[backup] database ${mb(manifest.database.bytes)}, sha256 ${manifest.database.sha256}, integrity_check ${manifest.database.integrityCheck}`);

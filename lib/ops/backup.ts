@@ -7,8 +7,9 @@ import { TEMP_PREFIX } from "../storage/disk";
 import { isValidBlobKey } from "../storage/keys";
 
 /**
- * Online backup and restore of an SQLite installation: the database file and the disk driver's
- * uploads folder. Used by scripts/backup.ts and scripts/restore.ts, and by the tests. Plain
+ * Online backup and restore of an SQLite installation: the database file and its blobs (photos
+ * and record PDFs) — copied from the disk driver's uploads folder, or fetched one by one from any
+ * other storage (an S3 bucket) for every blob the database snapshot names. Used by scripts/backup.ts and scripts/restore.ts, and by the tests. Plain
  * Node (no Next, no Knex), so it runs from tsx beside a live server.
  *
  * A backup folder holds `flueward.sqlite` (a self-contained copy in rollback-journal mode),
@@ -56,6 +57,33 @@ export interface BackupManifest {
     files: BackupFileEntry[];
   };
   blobCheck: BlobCheck;
+}
+
+/** What the backup needs of a storage driver (lib/storage's BlobStorage has it). */
+export interface BlobReader {
+  get(key: string): Promise<Uint8Array | null>;
+}
+/** What pushing a restore into a bucket needs of a storage driver. */
+export interface BlobWriter {
+  put(key: string, bytes: Uint8Array, contentType: string): Promise<void>;
+}
+
+/** Every blob key a database names, with what it is and its content type, in a stable order. */
+export function referencedBlobs(db: Database.Database): { key: string; what: string; contentType: string }[] {
+  const tables = new Set(listTables(db));
+  const keys: { key: string; what: string; contentType: string }[] = [];
+  if (tables.has("photos")) {
+    for (const row of db.prepare("select id, storage_key, thumb_key, content_type from photos order by id").iterate() as Iterable<{ id: number; storage_key: string; thumb_key: string; content_type: string }>) {
+      keys.push({ key: row.storage_key, what: `photo ${row.id}`, contentType: row.content_type });
+      keys.push({ key: row.thumb_key, what: `photo ${row.id} thumbnail`, contentType: row.content_type });
+    }
+  }
+  if (tables.has("records")) {
+    for (const row of db.prepare("select id, pdf_key from records order by id").iterate() as Iterable<{ id: number; pdf_key: string }>) {
+      keys.push({ key: row.pdf_key, what: `record ${row.id}`, contentType: "application/pdf" });
+    }
+  }
+  return keys;
 }
 
 export function sha256OfBytes(bytes: Uint8Array): string {
@@ -190,11 +218,67 @@ async function copyUploads(sourceDir: string, targetDir: string): Promise<{ file
   return { files, skippedTempFiles };
 }
 
+/**
+ * Fetches every blob the snapshot names from the storage into the backup's uploads/ folder. A blob
+ * the storage does not have is left out; the blob check that follows reports it.
+ */
+async function copyReferencedBlobs(snapshot: Database.Database, storage: BlobReader, targetDir: string): Promise<{ files: BackupFileEntry[]; skippedTempFiles: number }> {
+  const files: BackupFileEntry[] = [];
+  const seen = new Set<string>();
+  await fsp.mkdir(targetDir, { recursive: true });
+  for (const { key } of referencedBlobs(snapshot)) {
+    if (seen.has(key)) continue;
+    seen.add(key);
+    const file = blobPath(targetDir, key);
+    if (!file) continue; // reported by the blob check
+    const bytes = await storage.get(key);
+    if (!bytes) continue;
+    await fsp.mkdir(path.dirname(file), { recursive: true });
+    await fsp.writeFile(file, bytes, { flag: "wx" });
+    files.push({ path: key, bytes: bytes.byteLength, sha256: sha256OfBytes(bytes) });
+  }
+  files.sort((a, b) => a.path.localeCompare(b.path));
+  return { files, skippedTempFiles: 0 };
+}
+
+/**
+ * Puts every restored blob file into a storage (the bucket the restored app will use), under its
+ * key and with the content type its row gives. Blobs are written once under fresh keys, so putting
+ * one that is already there writes the same bytes.
+ */
+export async function putRestoredBlobs(options: { dbFile: string; uploadsDir: string; storage: BlobWriter }): Promise<{ put: number; problems: string[] }> {
+  const db = new Database(options.dbFile, { readonly: true, fileMustExist: true });
+  let put = 0;
+  const problems: string[] = [];
+  try {
+    const seen = new Set<string>();
+    for (const { key, what, contentType } of referencedBlobs(db)) {
+      if (seen.has(key)) continue;
+      seen.add(key);
+      const file = blobPath(options.uploadsDir, key);
+      if (!file || !fs.existsSync(file)) {
+        problems.push(`${what}: blob ${key} is not in the restored uploads`);
+        continue;
+      }
+      await options.storage.put(key, new Uint8Array(await fsp.readFile(file)), contentType);
+      put += 1;
+    }
+  } finally {
+    db.close();
+  }
+  return { put, problems };
+}
+
 export interface CreateBackupOptions {
   /** The live SQLite file. */
   dbFile: string;
   /** The disk driver's uploads folder; null when blobs live elsewhere (S3). */
   uploadsDir: string | null;
+  /**
+   * Where blobs live when `uploadsDir` is null (the S3 driver): every blob the snapshot names is
+   * fetched from it into the backup's uploads/. Without either, no blob is copied.
+   */
+  blobSource?: { storage: BlobReader; description: string };
   /** The folder under which `<timestamp>/` is created (e.g. backups/). */
   backupsRoot: string;
   now?: Date;
@@ -244,13 +328,17 @@ export async function createBackup(options: CreateBackupOptions): Promise<{ dir:
     await fsyncPath(copyFile);
 
     const uploadsTarget = path.join(workDir, BACKUP_UPLOADS_NAME);
-    const uploads = options.uploadsDir ? await copyUploads(path.resolve(options.uploadsDir), uploadsTarget) : { files: [], skippedTempFiles: 0 };
-    if (!options.uploadsDir) await fsp.mkdir(uploadsTarget, { recursive: true });
-
     const checkDb = new Database(copyFile, { readonly: true, fileMustExist: true });
+    let uploads: { files: BackupFileEntry[]; skippedTempFiles: number };
     let blobCheck: BlobCheck;
     try {
-      blobCheck = options.uploadsDir ? checkBlobReferences(checkDb, uploadsTarget) : { photosChecked: 0, recordsChecked: 0, problems: [] };
+      if (options.uploadsDir) uploads = await copyUploads(path.resolve(options.uploadsDir), uploadsTarget);
+      else if (options.blobSource) uploads = await copyReferencedBlobs(checkDb, options.blobSource.storage, uploadsTarget);
+      else {
+        uploads = { files: [], skippedTempFiles: 0 };
+        await fsp.mkdir(uploadsTarget, { recursive: true });
+      }
+      blobCheck = options.uploadsDir || options.blobSource ? checkBlobReferences(checkDb, uploadsTarget) : { photosChecked: 0, recordsChecked: 0, problems: [] };
     } finally {
       checkDb.close();
     }
@@ -269,7 +357,7 @@ export async function createBackup(options: CreateBackupOptions): Promise<{ dir:
       },
       uploads: {
         dir: BACKUP_UPLOADS_NAME,
-        source: options.uploadsDir ? path.resolve(options.uploadsDir) : null,
+        source: options.uploadsDir ? path.resolve(options.uploadsDir) : (options.blobSource?.description ?? null),
         fileCount: uploads.files.length,
         bytes: uploads.files.reduce((sum, f) => sum + f.bytes, 0),
         skippedTempFiles: uploads.skippedTempFiles,

@@ -2,7 +2,7 @@ import "server-only";
 import path from "node:path";
 import { createDiskStorage } from "./disk";
 import { createMemoryStorage } from "./memory";
-import { createS3Storage } from "./s3";
+import { createS3Storage, s3OptionsFromEnv } from "./s3";
 
 export { INVALID_KEY_MESSAGE, assertValidBlobKey, isValidBlobKey, newBlobKey } from "./keys";
 
@@ -30,12 +30,6 @@ export function defaultUploadsDir(env: StorageEnv = process.env): string {
   return env.FLUEWARD_UPLOADS_DIR ? path.resolve(env.FLUEWARD_UPLOADS_DIR) : path.join(/* turbopackIgnore: true */ process.cwd(), "data", "uploads");
 }
 
-function requiredEnv(env: StorageEnv, name: string): string {
-  const value = env[name];
-  if (!value) throw new Error(`STORAGE_DRIVER=s3 needs ${name} to be set.`);
-  return value;
-}
-
 /** Builds the driver the environment asks for: STORAGE_DRIVER=disk (default), s3 or memory. */
 export function createStorageFromEnv(env: StorageEnv = process.env): BlobStorage {
   const driver = (env.STORAGE_DRIVER ?? "disk").toLowerCase();
@@ -43,13 +37,7 @@ export function createStorageFromEnv(env: StorageEnv = process.env): BlobStorage
     case "disk":
       return createDiskStorage({ rootDir: defaultUploadsDir(env) });
     case "s3":
-      return createS3Storage({
-        bucket: requiredEnv(env, "S3_BUCKET"),
-        region: env.S3_REGION || "us-east-1",
-        endpoint: env.S3_ENDPOINT || undefined,
-        accessKeyId: env.S3_ACCESS_KEY_ID || undefined,
-        secretAccessKey: env.S3_SECRET_ACCESS_KEY || undefined,
-      });
+      return createS3Storage(s3OptionsFromEnv(env));
     case "memory":
       // For tests only: nothing survives a restart.
       return createMemoryStorage();

@@ -14,6 +14,19 @@ export interface S3StorageOptions {
   client?: S3Client;
 }
 
+/** The S3 driver's settings from the environment (STORAGE_DRIVER=s3), or an error naming what is missing. */
+export function s3OptionsFromEnv(env: Record<string, string | undefined>): S3StorageOptions {
+  const bucket = env.S3_BUCKET;
+  if (!bucket) throw new Error("STORAGE_DRIVER=s3 needs S3_BUCKET to be set.");
+  return {
+    bucket,
+    region: env.S3_REGION || "us-east-1",
+    endpoint: env.S3_ENDPOINT || undefined,
+    accessKeyId: env.S3_ACCESS_KEY_ID || undefined,
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY || undefined,
+  };
+}
+
 function isMissing(error: unknown): boolean {
   const e = error as { name?: string; $metadata?: { httpStatusCode?: number } } | null;
   return e?.name === "NoSuchKey" || e?.name === "NotFound" || e?.$metadata?.httpStatusCode === 404;

@@ -10,7 +10,9 @@ import { buildInspectionWorld, exampleInspectionData } from "../../fixtures/insp
 import { signaturePng } from "../../e2e/support/signature";
 import { inspectionDataSchema } from "@/lib/inspections/data";
 import { findingKey, submissionBlockers } from "@/lib/inspections/evaluate";
-import { BACKUP_DB_NAME, createBackup, listTables, readManifest, restoreBackup } from "@/lib/ops/backup";
+import { BACKUP_DB_NAME, createBackup, listTables, putRestoredBlobs, readManifest, referencedBlobs, restoreBackup } from "@/lib/ops/backup";
+import { createS3Storage } from "@/lib/storage/s3";
+import { fakeS3Client } from "../../fixtures/fake-s3";
 import { TEMP_PREFIX } from "@/lib/storage/disk";
 
 type Inspections = typeof import("@/lib/data/inspections");
@@ -148,6 +150,48 @@ describe("backup and restore", () => {
     } finally {
       restored.close();
     }
+  });
+
+  test("with the blobs in a bucket, the backup fetches every one the database names, and a restore can put them into a new bucket", async () => {
+    // The live bucket holds what the disk driver holds here, under the same keys.
+    const live = fakeS3Client();
+    const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
+    const snapshotDb = new Database(dbFile, { readonly: true });
+    const named = referencedBlobs(snapshotDb);
+    snapshotDb.close();
+    expect(named).toHaveLength(3 * 2 + 1);
+    for (const blob of named) await liveBucket.put(blob.key, new Uint8Array(fs.readFileSync(path.join(uploadsDir, blob.key))), blob.contentType);
+
+    const { dir, manifest } = await createBackup({ dbFile, uploadsDir: null, blobSource: { storage: liveBucket, description: "s3://live-bucket" }, backupsRoot: path.join(work, "backups-s3") });
+    expect(manifest.uploads.source).toBe("s3://live-bucket");
+    expect(manifest.uploads.fileCount).toBe(named.length);
+    expect(manifest.blobCheck).toEqual({ photosChecked: 3, recordsChecked: 1, problems: [] });
+    expect(live.sent.filter((s) => s.startsWith("GetObjectCommand"))).toHaveLength(named.length);
+
+    const result = await restoreBackup({ backupDir: dir, dataDir: path.join(work, "restored-s3") });
+    expect(result.blobCheck.problems).toEqual([]);
+    const fresh = fakeS3Client();
+    const pushed = await putRestoredBlobs({ dbFile: result.dbFile, uploadsDir: result.uploadsDir, storage: createS3Storage({ bucket: "new-bucket", region: "us-east-1", client: fresh.client }) });
+    expect(pushed).toEqual({ put: named.length, problems: [] });
+    expect([...fresh.objects.keys()].sort()).toEqual(named.map((b) => b.key).sort());
+    for (const [key, object] of fresh.objects) {
+      expect(sha(object.body)).toBe(sha(live.objects.get(key)!.body));
+      expect(object.contentType).toBe(live.objects.get(key)!.contentType);
+    }
+    expect(fresh.objects.get(named.find((b) => b.what.startsWith("record"))!.key)?.contentType).toBe("application/pdf");
+  });
+
+  test("a blob missing from the bucket is named in the backup's blob check", async () => {
+    const live = fakeS3Client();
+    const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
+    const snapshotDb = new Database(dbFile, { readonly: true });
+    const named = referencedBlobs(snapshotDb);
+    snapshotDb.close();
+    const record = named.find((b) => b.what.startsWith("record"))!;
+    for (const blob of named) if (blob !== record) await liveBucket.put(blob.key, new Uint8Array(fs.readFileSync(path.join(uploadsDir, blob.key))), blob.contentType);
+    const { manifest } = await createBackup({ dbFile, uploadsDir: null, blobSource: { storage: liveBucket, description: "s3://live-bucket" }, backupsRoot: path.join(work, "backups-s3-missing") });
+    expect(manifest.uploads.fileCount).toBe(named.length - 1);
+    expect(manifest.blobCheck.problems).toEqual([`${record.what}: blob ${record.key} is missing`]);
   });
 
   test("a restore refuses a non-empty folder, and with force moves its contents aside instead of deleting them", async () => {

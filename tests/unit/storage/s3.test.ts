@@ -1,33 +1,6 @@
 import { describe, expect, test } from "vitest";
-import type { S3Client } from "@aws-sdk/client-s3";
+import { fakeS3Client as fakeClient } from "../../fixtures/fake-s3";
 import { createS3Storage } from "@/lib/storage/s3";
-
-/** A stand-in for S3Client.send that keeps objects in a Map and answers like S3 does. */
-function fakeClient() {
-  const objects = new Map<string, { body: Uint8Array; contentType?: string }>();
-  const sent: string[] = [];
-  const client = {
-    async send(command: { constructor: { name: string }; input: { Bucket: string; Key: string; Body?: Uint8Array; ContentType?: string } }) {
-      const name = command.constructor.name;
-      sent.push(`${name} ${command.input.Bucket}/${command.input.Key}`);
-      if (name === "PutObjectCommand") {
-        objects.set(command.input.Key, { body: command.input.Body!, contentType: command.input.ContentType });
-        return {};
-      }
-      if (name === "GetObjectCommand") {
-        const object = objects.get(command.input.Key);
-        if (!object) throw Object.assign(new Error("The specified key does not exist."), { name: "NoSuchKey", $metadata: { httpStatusCode: 404 } });
-        return { Body: { transformToByteArray: async () => new Uint8Array(object.body) } };
-      }
-      if (name === "DeleteObjectCommand") {
-        objects.delete(command.input.Key);
-        return {};
-      }
-      throw new Error(`unexpected ${name}`);
-    },
-  };
-  return { client: client as unknown as S3Client, objects, sent };
-}
 
 describe("S3 storage", () => {
   test("put, get and delete go to the bucket with the content type", async () => {
