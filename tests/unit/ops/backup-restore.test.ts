@@ -97,6 +97,20 @@ afterAll(async () => {
   fs.rmSync(work, { recursive: true, force: true });
 });
 
+/**
+ * A stand-in for the live bucket of an S3 install: it holds the blobs the disk driver holds here,
+ * under the same keys — those `keep` accepts.
+ */
+async function liveBucketHolding(keep: (blob: ReturnType<typeof referencedBlobs>[number]) => boolean) {
+  const live = fakeS3Client();
+  const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
+  const snapshotDb = new Database(dbFile, { readonly: true });
+  const named = referencedBlobs(snapshotDb);
+  snapshotDb.close();
+  for (const blob of named.filter(keep)) await liveBucket.put(blob.key, new Uint8Array(fs.readFileSync(path.join(uploadsDir, blob.key))), blob.contentType);
+  return { live, liveBucket, named };
+}
+
 describe("backup and restore", () => {
   test("a backup taken while the app's connection is open restores every row, photo and record intact", async () => {
     const record = await db("records").where({ inspection_id: approvedId }).first();
@@ -153,14 +167,8 @@ describe("backup and restore", () => {
   });
 
   test("with the blobs in a bucket, the backup fetches every one the database names, and a restore can put them into a new bucket", async () => {
-    // The live bucket holds what the disk driver holds here, under the same keys.
-    const live = fakeS3Client();
-    const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
-    const snapshotDb = new Database(dbFile, { readonly: true });
-    const named = referencedBlobs(snapshotDb);
-    snapshotDb.close();
+    const { live, liveBucket, named } = await liveBucketHolding(() => true);
     expect(named).toHaveLength(3 * 2 + 1);
-    for (const blob of named) await liveBucket.put(blob.key, new Uint8Array(fs.readFileSync(path.join(uploadsDir, blob.key))), blob.contentType);
 
     const { dir, manifest } = await createBackup({ dbFile, uploadsDir: null, blobSource: { storage: liveBucket, description: "s3://live-bucket" }, backupsRoot: path.join(work, "backups-s3") });
     expect(manifest.uploads.source).toBe("s3://live-bucket");
@@ -182,13 +190,8 @@ describe("backup and restore", () => {
   });
 
   test("a blob missing from the bucket is named in the backup's blob check", async () => {
-    const live = fakeS3Client();
-    const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
-    const snapshotDb = new Database(dbFile, { readonly: true });
-    const named = referencedBlobs(snapshotDb);
-    snapshotDb.close();
+    const { liveBucket, named } = await liveBucketHolding((blob) => !blob.what.startsWith("record"));
     const record = named.find((b) => b.what.startsWith("record"))!;
-    for (const blob of named) if (blob !== record) await liveBucket.put(blob.key, new Uint8Array(fs.readFileSync(path.join(uploadsDir, blob.key))), blob.contentType);
     const { manifest } = await createBackup({ dbFile, uploadsDir: null, blobSource: { storage: liveBucket, description: "s3://live-bucket" }, backupsRoot: path.join(work, "backups-s3-missing") });
     expect(manifest.uploads.fileCount).toBe(named.length - 1);
     expect(manifest.blobCheck.problems).toEqual([`${record.what}: blob ${record.key} is missing`]);
