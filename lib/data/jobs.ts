@@ -134,8 +134,8 @@ export async function listJobs(args: { companyId: number; userId: number; query:
   const offset = (page - 1) * query.pageSize;
   if (total === 0) return { items: [], total, page, pageSize: query.pageSize, pageCount };
   const fewMatches = plan !== null && (offset + query.pageSize) * WALK_WHEN_MATCHES_EXCEED_PAGE_END_TIMES > total;
-  // Few matches of a one- or two-letter search (no trigram): one pass over the covering search
-  // index finds them, and only those are read and sorted.
+  // Few matches: read the trigram candidates, or for a one- or two-letter search (no trigram) find
+  // the matches in one pass over the covering search index; only those rows are read and sorted.
   const listQuery = fewMatches
     ? plan.kind === "trigram"
       ? withInstallerName(filtered({ byCandidates: true })).select(JOB_COLUMNS)

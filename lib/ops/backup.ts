@@ -8,9 +8,10 @@ import { isValidBlobKey } from "../storage/keys";
 
 /**
  * Online backup and restore of an SQLite installation: the database file and its blobs (photos
- * and record PDFs) — copied from the disk driver's uploads folder, or fetched one by one from any
- * other storage (an S3 bucket) for every blob the database snapshot names. Used by scripts/backup.ts and scripts/restore.ts, and by the tests. Plain
- * Node (no Next, no Knex), so it runs from tsx beside a live server.
+ * and record PDFs), copied from the disk driver's uploads folder, or fetched one by one from any
+ * other storage (an S3 bucket) for every blob the database snapshot names. Used by
+ * scripts/backup.ts and scripts/restore.ts, and by the tests. Plain Node (no Next, no Knex), so it
+ * runs from tsx beside a live server.
  *
  * A backup folder holds `flueward.sqlite` (a self-contained copy in rollback-journal mode),
  * `uploads/` (the blob files) and `manifest.json`. It is written under a dot-name and renamed
@@ -68,22 +69,43 @@ export interface BlobWriter {
   put(key: string, bytes: Uint8Array, contentType: string): Promise<void>;
 }
 
-/** Every blob key a database names, with what it is and its content type, in a stable order. */
-export function referencedBlobs(db: Database.Database): { key: string; what: string; contentType: string }[] {
+/** One blob a database row names, and what its file must be to count as intact. */
+export interface ReferencedBlob {
+  key: string;
+  /** The row, for messages: "photo 3", "photo 3 thumbnail", "record 1". */
+  what: string;
+  kind: "photo" | "thumbnail" | "record";
+  contentType: string;
+  /** The row's sha256 and size of the bytes, where the row keeps them (not for thumbnails). */
+  expected: { sha256: string; bytes: number } | null;
+}
+
+/**
+ * Every blob the database's rows name (photos, their thumbnails, record PDFs), row by row in a
+ * stable order: the one list the blob check, the S3 backup and the bucket restore all read. A key
+ * appears once per row that names it (a correction shares its photos' files).
+ */
+export function referencedBlobs(db: Database.Database): ReferencedBlob[] {
   const tables = new Set(listTables(db));
-  const keys: { key: string; what: string; contentType: string }[] = [];
+  const blobs: ReferencedBlob[] = [];
   if (tables.has("photos")) {
-    for (const row of db.prepare("select id, storage_key, thumb_key, content_type from photos order by id").iterate() as Iterable<{ id: number; storage_key: string; thumb_key: string; content_type: string }>) {
-      keys.push({ key: row.storage_key, what: `photo ${row.id}`, contentType: row.content_type });
-      keys.push({ key: row.thumb_key, what: `photo ${row.id} thumbnail`, contentType: row.content_type });
+    for (const row of db.prepare("select id, storage_key, thumb_key, content_type, sha256, bytes from photos order by id").iterate() as Iterable<{ id: number; storage_key: string; thumb_key: string; content_type: string; sha256: string; bytes: number }>) {
+      blobs.push({ key: row.storage_key, what: `photo ${row.id}`, kind: "photo", contentType: row.content_type, expected: { sha256: row.sha256, bytes: row.bytes } });
+      blobs.push({ key: row.thumb_key, what: `photo ${row.id} thumbnail`, kind: "thumbnail", contentType: row.content_type, expected: null });
     }
   }
   if (tables.has("records")) {
-    for (const row of db.prepare("select id, pdf_key from records order by id").iterate() as Iterable<{ id: number; pdf_key: string }>) {
-      keys.push({ key: row.pdf_key, what: `record ${row.id}`, contentType: "application/pdf" });
+    for (const row of db.prepare("select id, pdf_key, sha256, pdf_bytes from records order by id").iterate() as Iterable<{ id: number; pdf_key: string; sha256: string; pdf_bytes: number }>) {
+      blobs.push({ key: row.pdf_key, what: `record ${row.id}`, kind: "record", contentType: "application/pdf", expected: { sha256: row.sha256, bytes: row.pdf_bytes } });
     }
   }
-  return keys;
+  return blobs;
+}
+
+/** Each key of the list once, for copying: rows that share a file need it copied only once. */
+function distinctKeys(blobs: readonly ReferencedBlob[]): ReferencedBlob[] {
+  const seen = new Set<string>();
+  return blobs.filter((blob) => !seen.has(blob.key) && Boolean(seen.add(blob.key)));
 }
 
 export function sha256OfBytes(bytes: Uint8Array): string {
@@ -134,36 +156,26 @@ export function blobPath(uploadsDir: string, key: string): string | null {
  */
 export function checkBlobReferences(db: Database.Database, uploadsDir: string): BlobCheck {
   const problems: string[] = [];
-  const readBlob = (what: string, key: string): Buffer | null => {
-    const file = blobPath(uploadsDir, key);
-    if (!file) {
-      problems.push(`${what}: key ${JSON.stringify(key)} is not a valid blob key`);
-      return null;
-    }
-    try {
-      return fs.readFileSync(file);
-    } catch {
-      problems.push(`${what}: blob ${key} is missing`);
-      return null;
-    }
-  };
-  const tables = new Set(listTables(db));
   let photosChecked = 0;
   let recordsChecked = 0;
-  if (tables.has("photos")) {
-    for (const row of db.prepare("select id, storage_key, thumb_key, sha256, bytes from photos order by id").iterate() as Iterable<{ id: number; storage_key: string; thumb_key: string; sha256: string; bytes: number }>) {
-      photosChecked += 1;
-      const full = readBlob(`photo ${row.id}`, row.storage_key);
-      if (full && (sha256OfBytes(full) !== row.sha256 || full.byteLength !== row.bytes)) problems.push(`photo ${row.id}: blob ${row.storage_key} does not match the row's sha256 or size`);
-      const thumb = readBlob(`photo ${row.id} thumbnail`, row.thumb_key);
-      if (thumb && thumb.byteLength === 0) problems.push(`photo ${row.id}: thumbnail ${row.thumb_key} is empty`);
+  for (const blob of referencedBlobs(db)) {
+    if (blob.kind === "photo") photosChecked += 1;
+    if (blob.kind === "record") recordsChecked += 1;
+    const file = blobPath(uploadsDir, blob.key);
+    if (!file) {
+      problems.push(`${blob.what}: key ${JSON.stringify(blob.key)} is not a valid blob key`);
+      continue;
     }
-  }
-  if (tables.has("records")) {
-    for (const row of db.prepare("select id, pdf_key, sha256, pdf_bytes from records order by id").iterate() as Iterable<{ id: number; pdf_key: string; sha256: string; pdf_bytes: number }>) {
-      recordsChecked += 1;
-      const pdf = readBlob(`record ${row.id}`, row.pdf_key);
-      if (pdf && (sha256OfBytes(pdf) !== row.sha256 || pdf.byteLength !== row.pdf_bytes)) problems.push(`record ${row.id}: PDF ${row.pdf_key} does not match the row's sha256 or size`);
+    let bytes: Buffer;
+    try {
+      bytes = fs.readFileSync(file);
+    } catch {
+      problems.push(`${blob.what}: blob ${blob.key} is missing`);
+      continue;
+    }
+    if (blob.kind === "thumbnail" && bytes.byteLength === 0) problems.push(`${blob.what.replace(/ thumbnail$/, "")}: thumbnail ${blob.key} is empty`);
+    if (blob.expected && (sha256OfBytes(bytes) !== blob.expected.sha256 || bytes.byteLength !== blob.expected.bytes)) {
+      problems.push(`${blob.what}: ${blob.kind === "record" ? "PDF" : "blob"} ${blob.key} does not match the row's sha256 or size`);
     }
   }
   return { photosChecked, recordsChecked, problems };
@@ -224,11 +236,8 @@ async function copyUploads(sourceDir: string, targetDir: string): Promise<{ file
  */
 async function copyReferencedBlobs(snapshot: Database.Database, storage: BlobReader, targetDir: string): Promise<{ files: BackupFileEntry[]; skippedTempFiles: number }> {
   const files: BackupFileEntry[] = [];
-  const seen = new Set<string>();
   await fsp.mkdir(targetDir, { recursive: true });
-  for (const { key } of referencedBlobs(snapshot)) {
-    if (seen.has(key)) continue;
-    seen.add(key);
+  for (const { key } of distinctKeys(referencedBlobs(snapshot))) {
     const file = blobPath(targetDir, key);
     if (!file) continue; // reported by the blob check
     const bytes = await storage.get(key);
@@ -251,10 +260,7 @@ export async function putRestoredBlobs(options: { dbFile: string; uploadsDir: st
   let put = 0;
   const problems: string[] = [];
   try {
-    const seen = new Set<string>();
-    for (const { key, what, contentType } of referencedBlobs(db)) {
-      if (seen.has(key)) continue;
-      seen.add(key);
+    for (const { key, what, contentType } of distinctKeys(referencedBlobs(db))) {
       const file = blobPath(options.uploadsDir, key);
       if (!file || !fs.existsSync(file)) {
         problems.push(`${what}: blob ${key} is not in the restored uploads`);

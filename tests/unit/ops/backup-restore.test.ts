@@ -10,7 +10,7 @@ import { buildInspectionWorld, exampleInspectionData } from "../../fixtures/insp
 import { signaturePng } from "../../e2e/support/signature";
 import { inspectionDataSchema } from "@/lib/inspections/data";
 import { findingKey, submissionBlockers } from "@/lib/inspections/evaluate";
-import { BACKUP_DB_NAME, createBackup, listTables, putRestoredBlobs, readManifest, referencedBlobs, restoreBackup } from "@/lib/ops/backup";
+import { BACKUP_DB_NAME, checkBlobReferences, createBackup, listTables, putRestoredBlobs, readManifest, referencedBlobs, restoreBackup, type ReferencedBlob } from "@/lib/ops/backup";
 import { createS3Storage } from "@/lib/storage/s3";
 import { fakeS3Client } from "../../fixtures/fake-s3";
 import { TEMP_PREFIX } from "@/lib/storage/disk";
@@ -101,7 +101,7 @@ afterAll(async () => {
  * A stand-in for the live bucket of an S3 install: it holds the blobs the disk driver holds here,
  * under the same keys — those `keep` accepts.
  */
-async function liveBucketHolding(keep: (blob: ReturnType<typeof referencedBlobs>[number]) => boolean) {
+async function liveBucketHolding(keep: (blob: ReferencedBlob) => boolean) {
   const live = fakeS3Client();
   const liveBucket = createS3Storage({ bucket: "live-bucket", region: "us-east-1", client: live.client });
   const snapshotDb = new Database(dbFile, { readonly: true });
@@ -187,6 +187,29 @@ describe("backup and restore", () => {
       expect(object.contentType).toBe(live.objects.get(key)!.contentType);
     }
     expect(fresh.objects.get(named.find((b) => b.what.startsWith("record"))!.key)?.contentType).toBe("application/pdf");
+  });
+
+  test("the blob check names a photo, a thumbnail and a PDF whose files were changed", async () => {
+    const { dir } = await createBackup({ dbFile, uploadsDir, backupsRoot: path.join(work, "backups-tampered") });
+    const result = await restoreBackup({ backupDir: dir, dataDir: path.join(work, "restored-tampered") });
+    expect(result.blobCheck.problems).toEqual([]);
+    const restored = new Database(result.dbFile, { readonly: true });
+    const named = referencedBlobs(restored);
+    const photo = named.find((b) => b.kind === "photo")!;
+    const thumbnail = named.find((b) => b.kind === "thumbnail" && b.key !== photo.key)!;
+    const record = named.find((b) => b.kind === "record")!;
+    fs.appendFileSync(path.join(result.uploadsDir, photo.key), "x");
+    fs.writeFileSync(path.join(result.uploadsDir, thumbnail.key), "");
+    fs.writeFileSync(path.join(result.uploadsDir, record.key), "%PDF-1.7 not the signed one");
+    const check = checkBlobReferences(restored, result.uploadsDir);
+    restored.close();
+    expect(check.problems).toEqual(
+      expect.arrayContaining([
+        `${photo.what}: blob ${photo.key} does not match the row's sha256 or size`,
+        `${thumbnail.what.replace(/ thumbnail$/, "")}: thumbnail ${thumbnail.key} is empty`,
+        `${record.what}: PDF ${record.key} does not match the row's sha256 or size`,
+      ]),
+    );
   });
 
   test("a blob missing from the bucket is named in the backup's blob check", async () => {
