@@ -1,29 +1,25 @@
 import { NextResponse, type NextRequest } from "next/server";
+import path from "node:path";
+import { buildCsp, readPrerenderedPageHashes } from "@/lib/api/csp";
 import { isCrossSiteWrite } from "@/lib/api/origin";
 
 /**
- * Runs before every request: a fresh CSP nonce for pages, security headers for everything,
+ * Runs before every request: a CSP for pages (a fresh nonce, or for a page the build prerendered
+ * the hashes of its inline scripts: lib/api/csp.ts), security headers for everything,
  * cross-site writes refused, and an early redirect to sign-in for pages when no session cookie
  * is present. The redirect is only a convenience: every handler, action and data read checks
  * the session and the role itself.
  */
 const PUBLIC_PAGE_PREFIXES = ["/sign-in", "/verify", "/share", "/forbidden"];
 
-function buildCsp(nonce: string): string {
-  const dev = process.env.NODE_ENV !== "production";
-  return [
-    "default-src 'self'",
-    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ""}`,
-    // React writes style attributes (e.g. progress widths); scripts stay nonce-only.
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' blob: data:",
-    "font-src 'self'",
-    `connect-src 'self'${dev ? " ws:" : ""}`,
-    "object-src 'none'",
-    "base-uri 'self'",
-    "form-action 'self'",
-    "frame-ancestors 'none'",
-  ].join("; ");
+const dev = process.env.NODE_ENV !== "production";
+
+/** The pages the production build prerendered, with their inline scripts' hashes; read once. */
+let prerenderedPages: Map<string, string[]> | undefined;
+function prerenderedPageHashes(pathname: string): string[] | undefined {
+  if (dev) return undefined; // the dev server renders every page per request, with the nonce
+  prerenderedPages ??= readPrerenderedPageHashes(path.join(/* turbopackIgnore: true */ process.cwd(), ".next"));
+  return prerenderedPages.get(pathname);
 }
 
 function applySecurityHeaders(response: NextResponse, csp: string): NextResponse {
@@ -60,8 +56,11 @@ export async function proxy(request: NextRequest) {
     return applySecurityHeaders(NextResponse.next(), csp);
   }
 
+  // Only a GET is answered with the prerendered HTML: Next renders a POST (a sign-in form sent
+  // before its script ran) per request, and that render takes the nonce.
+  const hashes = request.method === "GET" || request.method === "HEAD" ? prerenderedPageHashes(pathname) : undefined;
   const nonce = Buffer.from(crypto.randomUUID()).toString("base64");
-  const csp = buildCsp(nonce);
+  const csp = hashes ? buildCsp({ hashes }) : buildCsp({ nonce }, { dev });
   const isPublic = pathname === "/" || PUBLIC_PAGE_PREFIXES.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   if (!isPublic && !hasSessionCookie(request)) {
     const url = request.nextUrl.clone();
@@ -69,6 +68,9 @@ export async function proxy(request: NextRequest) {
     url.search = "";
     return applySecurityHeaders(NextResponse.redirect(url), csp);
   }
+
+  // A prerendered page's HTML is the same for every request: no nonce to hand to the renderer.
+  if (hashes) return applySecurityHeaders(NextResponse.next(), csp);
 
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("x-nonce", nonce);

@@ -28,7 +28,7 @@ async function main() {
   const approved = raw.prepare("select id from inspections where company_id = ? and status = 'approved' order by id limit 1").get(company) as { id: number };
   raw.close();
 
-  const routes: { route: string; path: string; editor?: boolean; signedIn: boolean }[] = [
+  const routes: { route: string; path: string; editor?: boolean; signedIn: boolean; status?: number }[] = [
     { route: "/", path: "/", signedIn: true },
     { route: "/sign-in", path: "/sign-in", signedIn: false },
     { route: "/jobs", path: "/jobs", signedIn: true },
@@ -45,6 +45,8 @@ async function main() {
     { route: "/account", path: "/account", signedIn: true },
     { route: "/forbidden", path: "/forbidden", signedIn: true },
     { route: "/verify", path: "/verify", signedIn: false },
+    // Any address no page matches: the not-found page.
+    { route: "/:...unknown", path: "/no/such/address", signedIn: true, status: 404 },
   ];
   assertEveryPageMeasured(routes.map((r) => r.route));
 
@@ -76,7 +78,7 @@ async function main() {
       const response = await fetch(server.base + r.path, { headers: r.signedIn ? { cookie: admin } : {} });
       const html = await response.text();
       const finalPath = new URL(response.url).pathname;
-      if (response.status !== 200 || finalPath === "/sign-in" && r.signedIn || finalPath === "/forbidden" && r.path !== "/forbidden") throw new Error(`${r.path} answered ${response.status} at ${finalPath}`);
+      if (response.status !== (r.status ?? 200) || finalPath === "/sign-in" && r.signedIn || finalPath === "/forbidden" && r.path !== "/forbidden") throw new Error(`${r.path} answered ${response.status} at ${finalPath}`);
       // `noModule` scripts (Next's legacy polyfills) are skipped by every browser that runs modules: not counted.
       const tags = [...html.matchAll(/<script\b[^>]*\bsrc="([^"]+)"[^>]*>/g)];
       const srcs = [...new Set(tags.filter((m) => !/\bnomodule\b/i.test(m[0])).map((m) => m[1]!.replace(/&amp;/g, "&")))];

@@ -4,6 +4,8 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 export NODE_ENV=production NEXT_TELEMETRY_DISABLED=1
 export FLUEWARD_DB_FILE="$PWD/test-results/e2e-db/flueward.sqlite"
+# Photos and record PDFs the tests upload stay beside the test database, out of the demo's data/.
+export FLUEWARD_UPLOADS_DIR="$PWD/test-results/e2e-db/uploads"
 rm -rf "$PWD/test-results/e2e-db"
 mkdir -p "$PWD/test-results/e2e-db"
 npx tsx scripts/prepare-db.ts

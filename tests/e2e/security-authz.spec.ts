@@ -1,3 +1,4 @@
+import { createHash } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { expect, request as playwrightRequest, test, type APIRequestContext, type APIResponse } from "@playwright/test";
@@ -372,31 +373,57 @@ test.describe("sign-in", () => {
 });
 
 test.describe("pages and APIs", () => {
-  test("pages carry a nonce CSP without 'unsafe-inline' for scripts and the security headers", async ({ request }) => {
-    for (const url of ["/sign-in", "/verify"]) {
-      const response = await request.get(url);
-      expect(response.status()).toBe(200);
-      const headers = response.headers();
-      const csp = headers["content-security-policy"]!;
-      const scriptSrc = csp.split(";").map((d) => d.trim()).find((d) => d.startsWith("script-src"))!;
-      expect(scriptSrc).toMatch(/'nonce-[A-Za-z0-9+/=]+'/);
-      expect(scriptSrc).not.toContain("'unsafe-inline'");
-      expect(scriptSrc).not.toContain("'unsafe-eval'");
-      expect(csp).toContain("frame-ancestors 'none'");
-      expect(csp).toContain("object-src 'none'");
-      expect(headers["x-content-type-options"]).toBe("nosniff");
-      expect(headers["x-frame-options"]).toBe("DENY");
-      expect(headers["referrer-policy"]).toBeTruthy();
-      expect(headers["x-powered-by"]).toBeUndefined();
+  const scriptSourceOf = (csp: string) => csp.split(";").map((d) => d.trim()).find((d) => d.startsWith("script-src"))!;
+  const expectPageHeaders = (url: string, headers: Record<string, string>) => {
+    const csp = headers["content-security-policy"]!;
+    const scriptSrc = scriptSourceOf(csp);
+    expect(scriptSrc, url).not.toContain("'unsafe-inline'");
+    expect(scriptSrc, url).not.toContain("'unsafe-eval'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("object-src 'none'");
+    expect(headers["x-content-type-options"]).toBe("nosniff");
+    expect(headers["x-frame-options"]).toBe("DENY");
+    expect(headers["referrer-policy"]).toBeTruthy();
+    expect(headers["x-powered-by"]).toBeUndefined();
+    return scriptSrc;
+  };
+
+  test("pages rendered per request carry a nonce CSP without 'unsafe-inline' for scripts, on every script tag", async ({ request, baseURL }) => {
+    const member = await apiAs(baseURL!, "installer");
+    for (const [url, client, status] of [["/verify", request, 200], ["/jobs", member, 200], ["/no/such/address", member, 404]] as const) {
+      const response = await client.get(url);
+      expect(response.status(), url).toBe(status);
+      const scriptSrc = expectPageHeaders(url, response.headers());
+      expect(scriptSrc).toMatch(/^script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'$/);
       const nonce = /'nonce-([^']+)'/.exec(scriptSrc)![1]!;
       const html = await response.text();
       const scripts = [...html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]);
       expect(scripts.length).toBeGreaterThan(0);
       for (const tag of scripts) expect(tag, `${url}: ${tag}`).toContain(`nonce="${nonce}"`);
     }
+    await member.dispose();
     const api = await request.get("/api/health");
     expect(api.headers()["content-security-policy"]).toContain("default-src 'none'");
     expect(api.headers()["x-content-type-options"]).toBe("nosniff");
+  });
+
+  test("prerendered pages allow exactly their own inline scripts by hash, and script files only from this site", async ({ request }) => {
+    for (const url of ["/sign-in", "/forbidden"]) {
+      const response = await request.get(url);
+      expect(response.status(), url).toBe(200);
+      const scriptSrc = expectPageHeaders(url, response.headers());
+      expect(scriptSrc).not.toContain("'nonce-");
+      expect(scriptSrc).not.toContain("'strict-dynamic'");
+      const allowed = new Set(scriptSrc.split(" ").slice(1));
+      const html = await response.text();
+      const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)];
+      const inline = scripts.filter((m) => !/\ssrc=/.test(` ${m[1]}`));
+      expect(inline.length).toBeGreaterThan(0);
+      for (const m of inline) expect(allowed, `${url}: ${m[2]!.slice(0, 60)}`).toContain(`'sha256-${createHash("sha256").update(m[2]!, "utf8").digest("base64")}'`);
+      // Nothing else is allowed: one hash per distinct inline script, plus 'self'.
+      expect(allowed.size).toBe(1 + new Set(inline.map((m) => m[2])).size);
+      for (const m of scripts.filter((s) => /\ssrc=/.test(` ${s[1]}`))) expect(m[1], url).toMatch(/src="\/_next\//);
+    }
   });
 
   test("cross-site state-changing requests are refused", async ({ baseURL }) => {

@@ -1,6 +1,6 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { useEffect, useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { EMAIL_MAX_LENGTH, EMAIL_MESSAGES, EMAIL_MIN_LENGTH, PASSWORD_MESSAGES, SIGN_IN_PASSWORD_MAX_LENGTH } from "@/lib/schemas/auth-messages";
@@ -33,6 +33,18 @@ export function SignInForm() {
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+
+  // The page is prerendered, so it cannot see the session: ask, and send a member who is already
+  // signed in on to the jobs (the signed-in pages check the session again, as always).
+  useEffect(() => {
+    const controller = new AbortController();
+    fetch("/api/me", { signal: controller.signal, cache: "no-store" })
+      .then((response) => {
+        if (response.ok) window.location.replace("/jobs");
+      })
+      .catch(() => undefined);
+    return () => controller.abort();
+  }, []);
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
