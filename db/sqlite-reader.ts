@@ -33,6 +33,18 @@ interface ClientLike {
  * is read-only: a builder wrongly taken for a read fails with SQLITE_READONLY instead of writing
  * outside the write lock. `destroy()` closes it with the pool.
  */
+const readers = new WeakMap<Knex, () => Database.Database | null>();
+
+/**
+ * The read-only connection of a Knex instance set up by `readOnSeparateConnection`, opened if
+ * need be; null for any other instance (PostgreSQL, `:memory:`, a transaction) or before the
+ * database file exists. For reads that bind values to a statement of their own
+ * (db/compiled-read.ts); everything else goes through Knex.
+ */
+export function readOnlyConnectionOf(db: Knex | Knex.Transaction): Database.Database | null {
+  return readers.get(db as Knex)?.() ?? null;
+}
+
 export function readOnSeparateConnection(db: Knex, filename: string): void {
   if (filename === ":memory:") return; // a second connection to :memory: is another database
   const client = db.client as unknown as ClientLike;
@@ -47,6 +59,8 @@ export function readOnSeparateConnection(db: Knex, filename: string): void {
     reader = connection;
     return reader;
   };
+
+  readers.set(db, openReader);
 
   const runner = client.runner.bind(client);
   client.runner = (builder) => {

@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
-import { getDb } from "@/db/knex";
+import { compiledRead } from "@/db/compiled-read";
+import { getDb, isSqlite } from "@/db/knex";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/auth/roles";
 import { inspectionDataSchema, emptyInspectionData, type InspectionData } from "@/lib/inspections/data";
@@ -176,10 +177,9 @@ export async function listInspections(args: { companyId: number; query: Inspecti
   return { items: rows.map(toSummary), total, page, pageSize: query.pageSize, pageCount };
 }
 
-export async function getInspection(args: { companyId: number; id: number }): Promise<InspectionDetail> {
-  const db = getDb();
-  const row = await summaryQuery(db, args.companyId)
-    .andWhere("i.id", args.id)
+const inspectionRow = compiledRead("first", (db, p: { companyId: number; id: number }) =>
+  summaryQuery(db, p.companyId)
+    .andWhere("i.id", p.id)
     .leftJoin("users as sup", "sup.id", "i.approved_by")
     .join("rulebook_versions as rv", "rv.id", "i.rulebook_version_id")
     .join("rulebooks as rb", "rb.id", "rv.rulebook_id")
@@ -190,6 +190,8 @@ export async function getInspection(args: { companyId: number; id: number }): Pr
       "i.version",
       "i.data_json",
       "i.findings_json",
+      // SQLite checks the stored findings are well-formed JSON, so the API can send them as stored.
+      ...(isSqlite(db) ? [db.raw("json_valid(i.findings_json) as findings_json_valid")] : []),
       "i.installer_id",
       "i.installer_signed_name",
       "i.installer_signature_png",
@@ -203,35 +205,84 @@ export async function getInspection(args: { companyId: number; id: number }): Pr
       "rb.id as rb_id",
       "rb.name as rb_name",
       "lv.id as latest_rv_id",
-    );
+    ),
+);
+
+const inspectionCommentRows = compiledRead("all", (db, p: { companyId: number; inspectionId: number }) =>
+  db("inspection_comments").where({ company_id: p.companyId, inspection_id: p.inspectionId }).orderBy("id", "asc").select("*"),
+);
+
+// Every revision, the first included, carries root_inspection_id (createInspection sets it on
+// the first), so this is one index search. An `or id = ?` here made SQLite walk every one of
+// the company's inspections (5 ms per call at 50,000).
+const revisionRows = compiledRead("all", (db, p: { companyId: number; rootId: number }) =>
+  db("inspections").where({ company_id: p.companyId, root_inspection_id: p.rootId }).orderBy("revision", "asc").select("id", "revision", "status", "approved_at"),
+);
+
+interface InspectionRead {
+  detail: Omit<InspectionDetail, "findings">;
+  findingsJson: string | null;
+  /** The stored findings are known to be a well-formed JSON array (checked by SQLite). */
+  findingsJsonIsArray: boolean;
+}
+
+async function readInspection(args: { companyId: number; id: number }): Promise<InspectionRead> {
+  const db = getDb();
+  const row = await inspectionRow(db, { companyId: args.companyId, id: args.id });
   if (!row) throw new AppError("not_found", "No such inspection in your company.");
-  const rootId = (row.root_inspection_id as number | null) ?? row.id;
+  const id = row.id as number;
+  const rootId = (row.root_inspection_id as number | null) ?? id;
   const [comments, revisions] = await Promise.all([
-    db("inspection_comments").where({ company_id: args.companyId, inspection_id: args.id }).orderBy("id", "asc").select("*"),
-    // Every revision, the first included, carries root_inspection_id (createInspection sets it on
-    // the first), so this is one index search. An `or id = ?` here made SQLite walk every one of
-    // the company's inspections (5 ms per call at 50,000).
-    db("inspections").where({ company_id: args.companyId, root_inspection_id: rootId }).orderBy("revision", "asc").select("id", "revision", "status", "approved_at"),
+    inspectionCommentRows(db, { companyId: args.companyId, inspectionId: args.id }),
+    revisionRows(db, { companyId: args.companyId, rootId }),
   ]);
-  const parsedData = inspectionDataSchema.safeParse(parseJson(row.data_json, {}));
+  const parsedData = inspectionDataSchema.safeParse(parseJson(row.data_json as string | null, {}));
+  const findingsJson = (row.findings_json as string | null) ?? null;
   return {
-    ...toSummary(row),
-    version: row.version,
-    data: parsedData.success ? parsedData.data : emptyInspectionData(),
-    findings: parseJson<InspectionFinding[]>(row.findings_json, []),
-    rulebookVersion: { id: row.rv_id, rulebookId: row.rb_id, name: row.rb_name, versionNumber: row.rv_number },
-    latestRulebookVersionId: row.latest_rv_id ?? null,
-    installerId: row.installer_id ?? null,
-    installerSignedName: row.installer_signed_name ?? null,
-    installerSignaturePng: row.installer_signature_png ?? null,
-    supervisorName: row.supervisor_name ?? null,
-    supervisorSignedName: row.supervisor_signed_name ?? null,
-    supervisorSignaturePng: row.supervisor_signature_png ?? null,
-    previousInspectionId: row.previous_inspection_id ?? null,
-    rootInspectionId: rootId,
-    comments: comments.map((c) => ({ id: c.id, section: c.section, kind: c.kind, body: c.body, authorName: c.author_name, createdAt: c.created_at })),
-    revisions: revisions.map((r) => ({ id: r.id, revision: r.revision, status: r.status, approvedAt: r.approved_at ?? null })),
+    detail: {
+      ...toSummary(row),
+      version: row.version as number,
+      data: parsedData.success ? parsedData.data : emptyInspectionData(),
+      rulebookVersion: { id: row.rv_id as number, rulebookId: row.rb_id as number, name: row.rb_name as string, versionNumber: row.rv_number as number },
+      latestRulebookVersionId: (row.latest_rv_id as number | null) ?? null,
+      installerId: (row.installer_id as number | null) ?? null,
+      installerSignedName: (row.installer_signed_name as string | null) ?? null,
+      installerSignaturePng: (row.installer_signature_png as string | null) ?? null,
+      supervisorName: (row.supervisor_name as string | null) ?? null,
+      supervisorSignedName: (row.supervisor_signed_name as string | null) ?? null,
+      supervisorSignaturePng: (row.supervisor_signature_png as string | null) ?? null,
+      previousInspectionId: (row.previous_inspection_id as number | null) ?? null,
+      rootInspectionId: rootId,
+      comments: comments.map((c) => ({
+        id: c.id as number,
+        section: c.section as ReviewSection,
+        kind: c.kind as InspectionComment["kind"],
+        body: c.body as string,
+        authorName: c.author_name as string,
+        createdAt: c.created_at as string,
+      })),
+      revisions: revisions.map((r) => ({ id: r.id as number, revision: r.revision as number, status: r.status as InspectionStatus, approvedAt: (r.approved_at as string | null) ?? null })),
+    },
+    findingsJson,
+    findingsJsonIsArray: Number(row.findings_json_valid) === 1 && findingsJson !== null && /^\s*\[/.test(findingsJson),
   };
+}
+
+export async function getInspection(args: { companyId: number; id: number }): Promise<InspectionDetail> {
+  const { detail, findingsJson } = await readInspection(args);
+  return { ...detail, findings: parseJson<InspectionFinding[]>(findingsJson, []) };
+}
+
+/**
+ * `{"inspection": …}` as JSON text, the API's answer: the same fields as `getInspection`, with
+ * the stored findings (most of the answer's bytes) sent as stored when SQLite has checked them,
+ * instead of parsed and written out again.
+ */
+export async function getInspectionJsonText(args: { companyId: number; id: number }): Promise<string> {
+  const { detail, findingsJson, findingsJsonIsArray } = await readInspection(args);
+  const findings = findingsJsonIsArray ? findingsJson! : JSON.stringify(parseJson<InspectionFinding[]>(findingsJson, []));
+  // The detail is an object, so its JSON ends with its closing brace: findings go in just before.
+  return `{"inspection":${JSON.stringify(detail).slice(0, -1)},"findings":${findings}}}`;
 }
 
 function insertedId(inserted: unknown): number {

@@ -1,5 +1,6 @@
 import "server-only";
 import crypto from "node:crypto";
+import { compiledRead } from "@/db/compiled-read";
 import { getDb } from "@/db/knex";
 import { isRole, type Role } from "@/lib/auth/roles";
 import { isoPlus, nowIso } from "./clock";
@@ -43,16 +44,28 @@ export async function createSession(args: { userId: number; companyId: number; u
   return sessionId;
 }
 
-/**
- * The member behind a session id, or null when the session is unknown, revoked, past its
- * absolute lifetime, idle too long, or its user has been deactivated.
- */
-export async function findSessionMember(sessionId: string): Promise<SessionMember | null> {
-  const idHash = hashSessionId(sessionId);
-  const row = await getDb()("sessions as s")
+interface SessionMemberRow {
+  id_hash: string;
+  user_id: number;
+  company_id: number;
+  last_seen_at: string;
+  expires_at: string;
+  revoked_at: string | null;
+  role: string;
+  name: string;
+  email: string;
+  active: number | boolean;
+  user_company_id: number;
+  must_change_password: number | boolean;
+  company_name: string;
+}
+
+/** Read on every signed-in request: compiled once (db/compiled-read.ts). */
+const sessionMemberRow = compiledRead("first", (db, p: { idHash: string }) =>
+  db("sessions as s")
     .join("users as u", "u.id", "s.user_id")
     .join("companies as c", "c.id", "s.company_id")
-    .where("s.id_hash", idHash)
+    .where("s.id_hash", p.idHash)
     .first(
       "s.id_hash",
       "s.user_id",
@@ -67,7 +80,16 @@ export async function findSessionMember(sessionId: string): Promise<SessionMembe
       "u.company_id as user_company_id",
       "u.must_change_password",
       "c.name as company_name",
-    );
+    ),
+);
+
+/**
+ * The member behind a session id, or null when the session is unknown, revoked, past its
+ * absolute lifetime, idle too long, or its user has been deactivated.
+ */
+export async function findSessionMember(sessionId: string): Promise<SessionMember | null> {
+  const idHash = hashSessionId(sessionId);
+  const row = (await sessionMemberRow(getDb(), { idHash })) as SessionMemberRow | undefined;
   if (!row || row.revoked_at) return null;
   const now = Date.now();
   if (Date.parse(row.expires_at) <= now) return null;

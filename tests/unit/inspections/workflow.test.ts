@@ -64,6 +64,36 @@ describe("inspection workflow", () => {
     expect(local.findings.some((f) => f.code === "connector.slope" && f.status === "fail")).toBe(true);
   });
 
+  test("the API's JSON text is getInspection's answer, with findings as stored; damaged stored findings still give valid JSON", async () => {
+    const { id } = await inspections.createInspection({ member: world.a.installer, jobId: world.a.jobId });
+    const data = inspectionDataSchema.parse(exampleInspectionData());
+    const saved = await inspections.saveDraft({ member: world.a.installer, id, version: 1, data });
+    const justified = { ...data, justifications: Object.fromEntries(submissionBlockers(saved.findings, {}).map((f) => [findingKey(f), { text: "Allowed by the manual.", reference: "p. 3" }])) };
+    const again = await inspections.saveDraft({ member: world.a.installer, id, version: saved.version, data: justified });
+    await inspections.submitInspection({ member: world.a.installer, id, version: again.version, typedName: "I One", signaturePng: SIGNATURE });
+    await inspections.returnInspection({ member: world.a.supervisor, id, comments: [{ section: "ventRun", body: "Add a hanger at the elbow." }] });
+
+    const detail = await inspections.getInspection({ companyId: world.a.companyId, id });
+    expect(detail.comments.map((c) => c.body)).toEqual(["Add a hanger at the elbow."]);
+    expect(detail.findings.length).toBeGreaterThan(20);
+    const text = await inspections.getInspectionJsonText({ companyId: world.a.companyId, id });
+    expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify({ inspection: detail })));
+    // The stored text itself is what goes out.
+    const stored = (await db("inspections").where({ id }).first("findings_json")).findings_json as string;
+    expect(text).toContain(`"findings":${stored}}}`);
+    // …as stored, byte for byte (a parse and re-write would drop these spaces).
+    await db("inspections").where({ id }).update({ findings_json: '[ { "code": "spaced" } ]' });
+    expect(await inspections.getInspectionJsonText({ companyId: world.a.companyId, id })).toContain('"findings":[ { "code": "spaced" } ]}}');
+
+    for (const [damaged, expected] of [["[{\"code\": \"cut", []], ["", []], ['{"not":"a list"}', { not: "a list" }]] as const) {
+      await db("inspections").where({ id }).update({ findings_json: damaged });
+      const answer = JSON.parse(await inspections.getInspectionJsonText({ companyId: world.a.companyId, id }));
+      expect(answer.inspection.findings).toEqual(expected);
+      expect(answer.inspection.findings).toEqual((await inspections.getInspection({ companyId: world.a.companyId, id })).findings);
+    }
+    await expectAppError(inspections.getInspectionJsonText({ companyId: world.b.companyId, id }), "not_found");
+  });
+
   test("autosave uses versions: a stale save is a conflict and changes nothing", async () => {
     const { id } = await inspections.createInspection({ member: world.a.installer, jobId: world.a.jobId });
     const data = inspectionDataSchema.parse({ ...exampleInspectionData(), notes: "first" });

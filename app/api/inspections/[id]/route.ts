@@ -1,10 +1,10 @@
-import { apiRoute, json, parseParams } from "@/lib/api/handler";
+import { apiRoute, jsonText, parseParams } from "@/lib/api/handler";
 import { requireMember } from "@/lib/auth/session";
-import { getInspection } from "@/lib/data/inspections";
+import { getInspectionJsonText } from "@/lib/data/inspections";
 import { idParamsSchema } from "@/lib/schemas/common";
 
 export const GET = apiRoute<{ id: string }>(async (_request, context) => {
   const member = await requireMember();
   const { id } = await parseParams(context, idParamsSchema);
-  return json({ inspection: await getInspection({ companyId: member.companyId, id }) });
+  return jsonText(await getInspectionJsonText({ companyId: member.companyId, id }));
 });
