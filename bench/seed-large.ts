@@ -153,6 +153,9 @@ async function main() {
     }
   });
   for (let from = 0; from < LARGE_JOBS; from += BATCH) insertJobs(from, Math.min(LARGE_JOBS, from + BATCH));
+  // The company's job total, as createJob keeps it (lib/data/job-totals.ts).
+  db.prepare("delete from job_totals where company_id = ?").run(company.id);
+  db.prepare("insert into job_totals (company_id, job_count, last_job_id) select company_id, count(*), max(id) from jobs where company_id = ? group by company_id").run(company.id);
   const tJobs = performance.now();
 
   const templates = inspectionTemplates();

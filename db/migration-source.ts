@@ -6,6 +6,7 @@ import * as records from "./migrations/20261201000004_records";
 import * as inspectionListIndexes from "./migrations/20261201000005_inspection_list_indexes";
 import * as jobSearchIndex from "./migrations/20261201000006_job_search_index";
 import * as jobSearchTrigrams from "./migrations/20261201000007_job_search_trigrams";
+import * as jobTotals from "./migrations/20261201000008_job_totals";
 
 /**
  * The migrations as a static list, for runtimes that cannot load .ts files from a folder
@@ -20,6 +21,7 @@ export const MIGRATIONS: Record<string, { up: (knex: Knex) => Promise<void>; dow
   "20261201000005_inspection_list_indexes.ts": inspectionListIndexes,
   "20261201000006_job_search_index.ts": jobSearchIndex,
   "20261201000007_job_search_trigrams.ts": jobSearchTrigrams,
+  "20261201000008_job_totals.ts": jobTotals,
 };
 
 export const staticMigrationSource: Knex.MigrationSource<string> = {

@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import bcrypt from "bcryptjs";
 import { indexJobSearch } from "../../lib/data/job-search";
+import { refreshJobTotals } from "../../lib/data/job-totals";
 
 /**
  * Demo data: an invented scenario. Two invented companies in invented towns, so that isolation
@@ -27,6 +28,7 @@ export async function seed(knex: Knex): Promise<void> {
     if (await knex.schema.hasTable(table)) await knex(table).del();
   }
   if (await knex.schema.hasTable("job_search_trigrams")) await knex("job_search_trigrams").del();
+  if (await knex.schema.hasTable("job_totals")) await knex("job_totals").del();
   for (const table of ["audit_events", "login_attempts", "sessions", "jobs"]) await knex(table).del();
   if (await knex.schema.hasTable("rulebook_versions")) {
     await knex("companies").update({ default_rulebook_id: null });
@@ -188,4 +190,6 @@ export async function seed(knex: Knex): Promise<void> {
   ]);
   // The search finds jobs by their trigrams; the seed writes jobs directly, so it indexes them too.
   await indexJobSearch(knex, (await knex("jobs").select("id")).map((j: { id: number }) => j.id));
+  // …and keeps each company's job total, as createJob does.
+  await refreshJobTotals(knex, (await knex("companies").select("id")).map((c: { id: number }) => c.id));
 }

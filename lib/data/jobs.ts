@@ -6,6 +6,7 @@ import type { JobFormValues, JobListQuery, JobStatus, JobUpdateValues } from "@/
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
 import { JOB_SEARCH_COLUMNS, candidateJobs, indexJobSearch, planJobTextSearch, whereJobTextMatches } from "./job-search";
+import { countCompanyJobs, refreshJobTotals } from "./job-totals";
 
 export interface Job {
   id: number;
@@ -127,8 +128,11 @@ export async function listJobs(args: { companyId: number; userId: number; query:
     if (query.q) whereJobTextMatches(q, { alias: "j", text: query.q, columns: JOB_SEARCH_COLUMNS });
     return q;
   };
-  const countRow = await filtered({ byCandidates: true }).count<{ n: number | string }[]>({ n: "*" }).first();
-  const total = Number(countRow?.n ?? 0);
+  // Every job of the company: read from the kept total (lib/data/job-totals.ts).
+  const unfiltered = !query.q && !query.status && query.mine !== "1";
+  const total = unfiltered
+    ? await countCompanyJobs(db, args.companyId)
+    : Number((await filtered({ byCandidates: true }).count<{ n: number | string }[]>({ n: "*" }).first())?.n ?? 0);
   const pageCount = Math.max(1, Math.ceil(total / query.pageSize));
   const page = Math.min(query.page, pageCount);
   const offset = (page - 1) * query.pageSize;
@@ -197,6 +201,7 @@ export async function createJob(args: { companyId: number; actor: AuditActor; va
       .returning("id");
     const jobId = typeof inserted === "object" ? (inserted as { id: number }).id : (inserted as number);
     await indexJobSearch(trx, [jobId]);
+    await refreshJobTotals(trx, [args.companyId]);
     await recordAudit(trx, {
       companyId: args.companyId,
       actor: args.actor,
