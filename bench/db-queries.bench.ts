@@ -157,7 +157,7 @@ async function main() {
   };
   const written = writeResult("db-queries", summary);
   const pad = (s: string, n: number) => s.padEnd(n).slice(0, n);
-  console.log(`database: ${counts.jobs} jobs, ${counts.inspections} inspections; median of ${RUNS} calls through lib/data (Knex + mapping), plan of every statement`);
+  console.log(`database: ${counts.jobs} jobs, ${counts.inspections} inspections; median of ${RUNS} calls through lib/data (Knex or compiled reads, and mapping), plan of every statement`);
   for (const r of results) {
     const access = r.plans
       .map((p) => p.plan.filter((d) => /^(SEARCH|SCAN)/.test(d)).map((d) => d.replace(/ USING (COVERING )?INDEX /, " ~").replace(/\(.*\)/, (m) => m)).join(" + "))

@@ -68,6 +68,8 @@ export function compiledRead<P extends ReadParams>(method: "first" | "all", buil
       statements.set(reader, statement);
     }
     const values = compiled.slots.map((slot) => ("param" in slot ? params[slot.param] : slot.constant));
+    // Knex's own "query" event, so whoever watches the queries (bench/db-queries.bench.ts) sees these too.
+    if (db.listenerCount("query") > 0) db.emit("query", { method: method === "first" ? "first" : "select", sql: compiled.sql, bindings: values, fromCompiledRead: true });
     return method === "first" ? (statement.get(...values) as Row | undefined) : (statement.all(...values) as Row[]);
   };
 }

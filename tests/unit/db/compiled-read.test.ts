@@ -71,6 +71,17 @@ describe("compiled reads", () => {
     expect(await noteById(db, { ownerId: 1, id: 2 })).toBeUndefined();
   });
 
+  test("tell Knex's query listeners what they run", async () => {
+    const seen: { sql: string; bindings: unknown[] }[] = [];
+    const listener = (q: { sql: string; bindings: unknown[] }) => seen.push(q);
+    db.on("query", listener);
+    await noteById(db, { ownerId: 3, id: 3 });
+    db.removeListener("query", listener);
+    expect(seen).toHaveLength(1);
+    expect(seen[0]!.sql).toMatch(/from `notes` as `n`/);
+    expect(seen[0]!.bindings).toEqual([3, 3, 1]);
+  });
+
   test("see every committed write at once", async () => {
     const before = await notesOf(db, { ownerId: 3, minScore: 0, tag: "hood" });
     await db("notes").insert({ owner_id: 3, tag: "hood", score: 10, body: "late" });
