@@ -31,9 +31,9 @@ export function json<T>(data: T, init: { status?: number; headers?: Record<strin
   return NextResponse.json(data, { status: init.status ?? 200, headers: { "Cache-Control": "no-store", ...init.headers } });
 }
 
-/** An answer already written as JSON text (e.g. stored JSON passed through), with `json`'s headers. */
-export function jsonText(text: string, init: { status?: number; headers?: Record<string, string> } = {}): NextResponse {
-  return new NextResponse(text, { status: init.status ?? 200, headers: { "Content-Type": "application/json", "Cache-Control": "no-store", ...init.headers } });
+/** An answer already written as JSON (e.g. stored JSON passed through, as UTF-8 bytes), with `json`'s headers. */
+export function jsonBody(body: string | Uint8Array<ArrayBuffer>, init: { status?: number; headers?: Record<string, string> } = {}): NextResponse {
+  return new NextResponse(body, { status: init.status ?? 200, headers: { "Content-Type": "application/json", "Cache-Control": "no-store", ...init.headers } });
 }
 
 /** Reads a JSON body no larger than the limit and parses it with the schema. */

@@ -76,22 +76,22 @@ describe("inspection workflow", () => {
     const detail = await inspections.getInspection({ companyId: world.a.companyId, id });
     expect(detail.comments.map((c) => c.body)).toEqual(["Add a hanger at the elbow."]);
     expect(detail.findings.length).toBeGreaterThan(20);
-    const text = await inspections.getInspectionJsonText({ companyId: world.a.companyId, id });
+    const text = (await inspections.getInspectionJsonBody({ companyId: world.a.companyId, id })).toString("utf8");
     expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify({ inspection: detail })));
     // The stored text itself is what goes out.
     const stored = (await db("inspections").where({ id }).first("findings_json")).findings_json as string;
     expect(text).toContain(`"findings":${stored}}}`);
     // …as stored, byte for byte (a parse and re-write would drop these spaces).
     await db("inspections").where({ id }).update({ findings_json: '[ { "code": "spaced" } ]' });
-    expect(await inspections.getInspectionJsonText({ companyId: world.a.companyId, id })).toContain('"findings":[ { "code": "spaced" } ]}}');
+    expect((await inspections.getInspectionJsonBody({ companyId: world.a.companyId, id })).toString("utf8")).toContain('"findings":[ { "code": "spaced" } ]}}');
 
     for (const [damaged, expected] of [["[{\"code\": \"cut", []], ["", []], ['{"not":"a list"}', { not: "a list" }]] as const) {
       await db("inspections").where({ id }).update({ findings_json: damaged });
-      const answer = JSON.parse(await inspections.getInspectionJsonText({ companyId: world.a.companyId, id }));
+      const answer = JSON.parse((await inspections.getInspectionJsonBody({ companyId: world.a.companyId, id })).toString("utf8"));
       expect(answer.inspection.findings).toEqual(expected);
       expect(answer.inspection.findings).toEqual((await inspections.getInspection({ companyId: world.a.companyId, id })).findings);
     }
-    await expectAppError(inspections.getInspectionJsonText({ companyId: world.b.companyId, id }), "not_found");
+    await expectAppError(inspections.getInspectionJsonBody({ companyId: world.b.companyId, id }), "not_found");
   });
 
   test("autosave uses versions: a stale save is a conflict and changes nothing", async () => {
