@@ -11,11 +11,14 @@ function allFiles(dir: string): string[] {
 }
 
 describe("disk storage", () => {
+  // The root sits inside a folder of its own, so a check for files escaping it reads that folder
+  // alone, not the whole system temp folder.
   let root: string;
   beforeEach(() => {
-    root = fs.mkdtempSync(path.join(os.tmpdir(), "flueward-uploads-"));
+    root = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "flueward-disk-")), "uploads");
+    fs.mkdirSync(root);
   });
-  afterEach(() => fs.rmSync(root, { recursive: true, force: true }));
+  afterEach(() => fs.rmSync(path.dirname(root), { recursive: true, force: true }));
 
   test("put, get and delete round-trip the bytes", async () => {
     const storage = createDiskStorage({ rootDir: root });
