@@ -2,7 +2,7 @@ import "server-only";
 import { z } from "zod";
 import { checkInputSchema, evaluateInspection, prepareRulebook, type PreparedRulebook } from "@/lib/venting";
 import { AppError } from "@/lib/errors";
-import { getCurrentRulebookVersion, getRulebookVersionById, type RulebookVersion } from "@/lib/data/rulebooks";
+import { getRulebookVersionContent, getRulebookVersionRef, type RulebookVersion, type RulebookVersionRef } from "@/lib/data/rulebooks";
 import { idSchema } from "@/lib/schemas/common";
 
 /** POST /api/check: the engine's input plus the rulebook version to check against (the current one when omitted). */
@@ -13,7 +13,7 @@ export type CheckRequest = z.infer<typeof checkRequestSchema>;
 const prepared = new Map<number, PreparedRulebook>();
 const MAX_PREPARED = 50;
 
-export function preparedFor(version: RulebookVersion): PreparedRulebook {
+export function preparedFor(version: Pick<RulebookVersion, "id" | "content">): PreparedRulebook {
   let rulebook = prepared.get(version.id);
   if (!rulebook) {
     rulebook = prepareRulebook(version.content);
@@ -23,14 +23,22 @@ export function preparedFor(version: RulebookVersion): PreparedRulebook {
   return rulebook;
 }
 
+/**
+ * The prepared form of one of the company's versions, read and prepared only the first time: the
+ * version's content is parsed (64 KB for the starter rulebook) only when it is not cached.
+ */
+export async function preparedForRef(companyId: number, ref: RulebookVersionRef): Promise<PreparedRulebook> {
+  const cached = prepared.get(ref.id);
+  if (cached) return cached;
+  const content = await getRulebookVersionContent({ companyId, versionId: ref.id });
+  return preparedFor({ id: ref.id, content });
+}
+
 export async function runCheck(args: { companyId: number; request: CheckRequest }) {
   const { rulebookVersionId, ...input } = args.request;
-  const version =
-    rulebookVersionId !== undefined
-      ? await getRulebookVersionById({ companyId: args.companyId, versionId: rulebookVersionId })
-      : await getCurrentRulebookVersion({ companyId: args.companyId });
+  const version = await getRulebookVersionRef({ companyId: args.companyId, versionId: rulebookVersionId });
   if (!version) throw new AppError("unprocessable", "Your company has no current rulebook. Ask a supervisor to create one.");
-  const result = evaluateInspection(input, preparedFor(version));
+  const result = evaluateInspection(input, await preparedForRef(args.companyId, version));
   const label = `${version.rulebookName}, version ${version.versionNumber}`;
   return {
     rulebook: { rulebookId: version.rulebookId, name: version.rulebookName, versionId: version.id, versionNumber: version.versionNumber, contentSha256: version.contentSha256 },

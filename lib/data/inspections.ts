@@ -6,14 +6,14 @@ import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/auth/roles";
 import { inspectionDataSchema, emptyInspectionData, type InspectionData } from "@/lib/inspections/data";
 import { evaluateInspectionData, submissionBlockers, type InspectionFinding } from "@/lib/inspections/evaluate";
-import { preparedFor } from "@/lib/checks/run-check";
+import { preparedFor, preparedForRef } from "@/lib/checks/run-check";
 import type { FindingSummary } from "@/lib/venting";
 import type { InspectionListQuery, ReviewSection } from "@/lib/schemas/inspection";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
 import { candidateJobs, planJobTextSearch, whereJobTextMatches } from "./job-search";
 import { containsPattern } from "./like";
-import { getCurrentRulebookVersion, getRulebookVersionById } from "./rulebooks";
+import { getCurrentRulebookVersion, getRulebookVersionById, getRulebookVersionRef } from "./rulebooks";
 import { listSiteCheckItems } from "./site-checks";
 import { assertEditable, getInspectionAccess, type InspectionStatus } from "./inspection-access";
 import { discardPreparedRecord, insertRecord, prepareRecord } from "./records";
@@ -76,9 +76,9 @@ function parseJson<T>(text: string | null | undefined, fallback: T): T {
 
 /** Evaluates the data against the pinned version and the company's site checks: the stored, authoritative result. */
 async function evaluateStored(companyId: number, rulebookVersionId: number, data: InspectionData) {
-  const version = await getRulebookVersionById({ companyId, versionId: rulebookVersionId });
+  const version = await getRulebookVersionRef({ companyId, versionId: rulebookVersionId });
   const items = await listSiteCheckItems({ companyId });
-  return evaluateInspectionData(data, preparedFor(version), items);
+  return evaluateInspectionData(data, await preparedForRef(companyId, version!), items);
 }
 
 const SUMMARY_COLUMNS = [

@@ -1,6 +1,7 @@
 import "server-only";
 import crypto from "node:crypto";
 import type { Knex } from "knex";
+import { compiledRead } from "@/db/compiled-read";
 import { getDb } from "@/db/knex";
 import { AppError } from "@/lib/errors";
 import { rulebookContentSchema, validateRulebookContent, type RulebookContent, type RulebookIssue } from "@/lib/venting";
@@ -146,6 +147,64 @@ export async function getRulebookVersion(args: { companyId: number; rulebookId: 
   const row = await versionQuery(db, args.companyId).andWhere({ "v.rulebook_id": args.rulebookId, "v.version_number": versionNumber }).first();
   if (!row) throw new AppError("not_found", `This rulebook has no version ${versionNumber}.`);
   return toVersion(row);
+}
+
+/** A version without its content: enough to name it and to find its prepared form by id. */
+export interface RulebookVersionRef {
+  id: number;
+  rulebookId: number;
+  rulebookName: string;
+  versionNumber: number;
+  contentSha256: string;
+}
+
+const VERSION_REF_COLUMNS = ["v.id", "v.rulebook_id", "r.name as rulebook_name", "v.version_number", "v.content_sha256"];
+
+const versionRefById = compiledRead("first", (db, p: { companyId: number; versionId: number }) =>
+  db("rulebook_versions as v").join("rulebooks as r", "r.id", "v.rulebook_id").where("v.company_id", p.companyId).andWhere("v.id", p.versionId).first(VERSION_REF_COLUMNS),
+);
+
+// The latest version of the company's default rulebook, in one statement.
+const currentVersionRef = compiledRead("first", (db, p: { companyId: number }) =>
+  db("companies as c")
+    .join("rulebooks as r", (on) => on.on("r.id", "c.default_rulebook_id").andOn("r.company_id", "c.id"))
+    .join("rulebook_versions as v", (on) => on.on("v.rulebook_id", "r.id").andOn("v.version_number", "r.latest_version_number").andOn("v.company_id", "c.id"))
+    .where("c.id", p.companyId)
+    .first(VERSION_REF_COLUMNS),
+);
+
+const versionContent = compiledRead("first", (db, p: { companyId: number; versionId: number }) =>
+  db("rulebook_versions").where({ company_id: p.companyId, id: p.versionId }).first("content_json"),
+);
+
+const toRef = (row: Record<string, unknown>): RulebookVersionRef => ({
+  id: row.id as number,
+  rulebookId: row.rulebook_id as number,
+  rulebookName: row.rulebook_name as string,
+  versionNumber: row.version_number as number,
+  contentSha256: row.content_sha256 as string,
+});
+
+/**
+ * A version of the company's by id, or the current one (the default rulebook's latest) when no id
+ * is given — without its content (64 KB of JSON for the starter rulebook), which a caller that
+ * already holds the version's prepared form does not need. Null when there is no current one.
+ */
+export async function getRulebookVersionRef(args: { companyId: number; versionId?: number }): Promise<RulebookVersionRef | null> {
+  if (args.versionId === undefined) {
+    const row = await currentVersionRef(getDb(), { companyId: args.companyId });
+    return row ? toRef(row) : null;
+  }
+  const row = await versionRefById(getDb(), { companyId: args.companyId, versionId: args.versionId });
+  if (!row) throw new AppError("not_found", "No such rulebook version in your company.");
+  return toRef(row);
+}
+
+/** A version's content, for the company's own version ids. */
+export async function getRulebookVersionContent(args: { companyId: number; versionId: number }): Promise<RulebookContent> {
+  const row = await versionContent(getDb(), { companyId: args.companyId, versionId: args.versionId });
+  if (!row) throw new AppError("not_found", "No such rulebook version in your company.");
+  return JSON.parse(row.content_json as string) as RulebookContent;
 }
 
 /** One version by its own id, as an inspection or a check pins it. */
