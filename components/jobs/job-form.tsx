@@ -176,7 +176,7 @@ export function JobForm({
       </div>
 
       <div className="flex flex-wrap gap-3">
-        <button type="submit" className="btn-primary" disabled={form.submitting}>
+        <button type="submit" className="btn-primary" disabled={!form.ready || form.submitting}>
           {form.submitting ? "Saving…" : mode === "create" ? "Create job" : "Save changes"}
         </button>
         {mode === "create" ? (

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { ApiError } from "@/lib/client/api";
+import { useHydrated } from "./use-hydrated";
 
 export type FieldErrors<F extends string> = Partial<Record<F, string>>;
 
@@ -16,6 +17,8 @@ export function useServerForm<F extends string>(fieldNames: readonly F[]) {
   const [errors, setErrors] = useState<FieldErrors<F>>({});
   const [formError, setFormError] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+  // Until the script runs, the submit button is disabled (see useHydrated).
+  const ready = useHydrated();
 
   function focusFirst(form: HTMLFormElement, found: FieldErrors<F>) {
     const first = fieldNames.find((f) => found[f]);
@@ -63,5 +66,5 @@ export function useServerForm<F extends string>(fieldNames: readonly F[]) {
     return { id, name, "aria-invalid": errors[name] ? true : undefined, "aria-describedby": `${id}-error` } as const;
   }
 
-  return { errors, formError, submitting, submit, fieldProps };
+  return { errors, formError, submitting, ready, submit, fieldProps };
 }

@@ -44,19 +44,35 @@ test.describe("sign-in and sign-out", () => {
     await expect(page.locator("#password-error")).toHaveText("Enter your password.");
   });
 
-  test("a sign-in sent before the page's script runs never puts the password in the address", async ({ browser, baseURL }) => {
-    // With scripts off, the form is what a phone submits before hydration: it must post, not get.
+  test("a sign-in cannot be sent before the page's script runs, and never puts the password in the address", async ({ browser, baseURL }) => {
+    // With scripts off, the page is what a phone shows before hydration: the button waits, the
+    // form names POST in case it is sent anyway, and the page says what is missing.
     const context = await browser.newContext({ baseURL, javaScriptEnabled: false });
     const page = await context.newPage();
     await page.goto("/sign-in");
+    await expect(page.locator("form")).toHaveAttribute("method", "post");
+    await expect(page.getByRole("button", { name: "Sign in" })).toBeDisabled();
+    // (The browser's script switch does not change how it parses <noscript>: read the HTML.)
+    expect(await (await context.request.get("/sign-in")).text()).toMatch(/<noscript><p[^>]*>Signing in needs JavaScript/);
     await page.getByLabel("E-mail").fill("someone@flueward.test");
     await page.getByLabel("Password").fill("not-in-the-address-please");
-    const [request] = await Promise.all([page.waitForRequest((r) => r.url().includes("/sign-in") && r.isNavigationRequest()), page.getByRole("button", { name: "Sign in" }).click()]);
-    expect(request.method()).toBe("POST");
-    await page.waitForLoadState();
+    let navigations = 0;
+    page.on("request", (r) => {
+      if (r.isNavigationRequest()) navigations += 1;
+    });
+    // Enter in a field of a form whose submit button is disabled sends nothing.
+    await page.getByLabel("Password").press("Enter");
+    await page.waitForTimeout(500);
+    expect(navigations).toBe(0);
     expect(page.url()).not.toContain("not-in-the-address-please");
-    await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
+    await expect(page.getByLabel("Password")).toHaveValue("not-in-the-address-please");
     await context.close();
+
+    // With scripts on, the same button is enabled once the page has hydrated.
+    const live = await browser.newPage({ baseURL });
+    await live.goto("/sign-in");
+    await expect(live.getByRole("button", { name: "Sign in" })).toBeEnabled();
+    await live.close();
   });
 
   test("sign-out ends the session on the server: a replayed cookie is refused", async ({ page, context }) => {

@@ -47,7 +47,7 @@ export function ChangePasswordForm() {
         {changed ? <p className="rounded-md bg-pass-soft px-3 py-2 text-sm font-medium text-pass">Password changed. Other sessions have been signed out.</p> : null}
         {form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}
       </div>
-      <button type="submit" className="btn-primary" disabled={form.submitting}>
+      <button type="submit" className="btn-primary" disabled={!form.ready || form.submitting}>
         {form.submitting ? "Saving…" : "Change password"}
       </button>
     </form>

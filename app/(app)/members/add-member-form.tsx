@@ -59,7 +59,7 @@ export function AddMemberForm() {
         <div aria-live="polite">
           {form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}
         </div>
-        <button type="submit" className="btn-primary w-full" disabled={form.submitting}>
+        <button type="submit" className="btn-primary w-full" disabled={!form.ready || form.submitting}>
           {form.submitting ? "Adding…" : "Add member"}
         </button>
       </form>

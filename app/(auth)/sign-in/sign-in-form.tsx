@@ -2,6 +2,7 @@
 
 import { useEffect, useState, type FormEvent } from "react";
 import { Field } from "@/components/ui/field";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { EMAIL_MAX_LENGTH, EMAIL_MESSAGES, EMAIL_MIN_LENGTH, PASSWORD_MESSAGES, SIGN_IN_PASSWORD_MAX_LENGTH } from "@/lib/schemas/auth-messages";
 
@@ -26,13 +27,15 @@ function checkBeforeSending(email: HTMLInputElement, password: HTMLInputElement)
 /**
  * Two fields and no form library: the sign-in page is the first thing every member loads, often on
  * a phone, so it carries as little script as it can. The fields are uncontrolled, so whatever was
- * typed before the script ran is what is sent; the form posts (never GETs), so a password can
- * never land in an address even if it is submitted before the script runs.
+ * typed before the script ran is what is sent once the button is enabled (it waits for the
+ * script, see useHydrated); the form posts (never GETs), so a password can never land in an
+ * address even if the browser sent the form itself.
  */
 export function SignInForm() {
   const [errors, setErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const [submitting, setSubmitting] = useState(false);
+  const ready = useHydrated();
 
   // The page is prerendered, so it cannot see the session: ask, and send a member who is already
   // signed in on to the jobs (the signed-in pages check the session again, as always).
@@ -109,9 +112,12 @@ export function SignInForm() {
           </p>
         ) : null}
       </div>
-      <button type="submit" className="btn-primary w-full" disabled={submitting}>
+      <button type="submit" className="btn-primary w-full" disabled={!ready || submitting}>
         {submitting ? "Signing in…" : "Sign in"}
       </button>
+      <noscript>
+        <p className="text-sm text-ink-600">Signing in needs JavaScript: turn it on for this site, then reload the page.</p>
+      </noscript>
     </form>
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState } from "react";
+import { useHydrated } from "@/components/ui/use-hydrated";
 
 interface Answer {
   sha256: string;
@@ -13,8 +14,13 @@ export function UploadCheck({ code }: { code: string }) {
   const [answer, setAnswer] = useState<Answer | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  // Until the script runs the button stays disabled: the browser would otherwise send the form
+  // itself, reloading the page without the answer.
+  const ready = useHydrated();
   return (
     <form
+      method="post"
+      encType="multipart/form-data"
       className="card space-y-3 p-4"
       onSubmit={async (e) => {
         e.preventDefault();
@@ -43,7 +49,7 @@ export function UploadCheck({ code }: { code: string }) {
         Record PDF
       </label>
       <input id="verify-file" name="file" type="file" accept="application/pdf,.pdf" className="block w-full text-sm" />
-      <button type="submit" className="btn-secondary" disabled={busy}>
+      <button type="submit" className="btn-secondary" disabled={!ready || busy}>
         {busy ? "Checking…" : "Check the file"}
       </button>
       <div aria-live="polite">

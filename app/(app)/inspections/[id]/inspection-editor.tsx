@@ -6,6 +6,7 @@ import { useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { SafetyNotice } from "@/components/safety-notice";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { useAutosave, readLocalDraft, type SaveStatus } from "@/components/inspection/use-autosave";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { inspectionDataSchema, type InspectionData } from "@/lib/inspections/data";
@@ -97,8 +98,7 @@ export function InspectionEditor(props: EditorProps) {
   const [submitting, setSubmitting] = useState(false);
   // Until the editor runs in the browser its fields are disabled: text typed into the server-
   // rendered page before then would be kept on screen but never reach the autosave.
-  const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  const hydrated = useHydrated();
 
   // A copy on this device that the server never received (offline, failed save) comes back first.
   const restored = useRef(false);

@@ -194,7 +194,7 @@ function EditItemForm({ item, onDone }: { item: SiteCheckItem; onDone: (saved: b
       </Field>
       <div aria-live="polite">{form.formError ? <p className="rounded-md bg-fail-soft px-3 py-2 text-sm font-medium text-fail">{form.formError}</p> : null}</div>
       <div className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-primary" disabled={form.submitting}>
+        <button type="submit" className="btn-primary" disabled={!form.ready || form.submitting}>
           {form.submitting ? "Saving…" : "Save"}
         </button>
         <button type="button" className="btn-ghost" disabled={form.submitting} onClick={() => onDone(false)}>
@@ -250,7 +250,7 @@ function AddItemForm({ onAdded }: { onAdded: () => void }) {
             </p>
           ) : null}
         </div>
-        <button type="submit" className="btn-primary w-full" disabled={form.submitting}>
+        <button type="submit" className="btn-primary w-full" disabled={!form.ready || form.submitting}>
           {form.submitting ? "Adding…" : "Add item"}
         </button>
       </form>
