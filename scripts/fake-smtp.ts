@@ -7,7 +7,9 @@
  *
  * To exercise failed sends: FAKE_SMTP_FAIL=1 refuses the first message after start, and a file
  * named `.fail-next` in the outbox folder refuses the next message (the flag is removed when
- * used). Both answer 451, a temporary error, as a busy real server would.
+ * used). When the file holds an address, only the next message to that address is refused, so a
+ * test can fail its own send while others run. Both answer 451, a temporary error, as a busy real
+ * server would.
  */
 import crypto from "node:crypto";
 import fs from "node:fs";
@@ -46,10 +48,21 @@ function addressList(value: AddressObject | AddressObject[] | undefined): string
   return objects.flatMap((o) => o.value.map((a) => a.address ?? "").filter(Boolean));
 }
 
-/** Takes the `.fail-next` flag if it is there; removing it first means two messages cannot both take it. */
-async function takeFailFlag(outboxDir: string): Promise<boolean> {
+/**
+ * Takes the `.fail-next` flag if it is there and meant for this message (empty, or naming one of
+ * `recipients`); removing it first means two messages cannot both take it.
+ */
+async function takeFailFlag(outboxDir: string, recipients: string[]): Promise<boolean> {
+  const flag = path.join(outboxDir, FAIL_NEXT_FLAG);
+  let onlyFor: string;
   try {
-    await fs.promises.unlink(path.join(outboxDir, FAIL_NEXT_FLAG));
+    onlyFor = (await fs.promises.readFile(flag, "utf8")).trim().toLowerCase();
+  } catch {
+    return false;
+  }
+  if (onlyFor && !recipients.some((r) => r.toLowerCase() === onlyFor)) return false;
+  try {
+    await fs.promises.unlink(flag);
     return true;
   } catch {
     return false;
@@ -95,7 +108,7 @@ export async function startFakeSmtp(options: FakeSmtpOptions): Promise<FakeSmtp>
           callback(Object.assign(new Error("Message too large for the fake mail server."), { responseCode: 552 }));
           return;
         }
-        const refuse = failFirst || (await takeFailFlag(outboxDir));
+        const refuse = failFirst || (await takeFailFlag(outboxDir, session.envelope.rcptTo.map((r) => r.address)));
         failFirst = false;
         if (refuse) {
           if (options.log) console.log("[fake-smtp] refused a message with 451 (fail flag)");

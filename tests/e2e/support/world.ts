@@ -99,6 +99,29 @@ export async function templateInspectionData(api: APIRequestContext): Promise<un
 }
 
 /**
+ * Creates an inspection on `jobId` with `templateData` (complete: fails justified, checks
+ * answered) and submits it as `submitter` (the admin when not given); returns its id.
+ */
+export async function submittedInspection(args: { admin: APIRequestContext; submitter?: APIRequestContext; jobId: number; templateData: unknown }): Promise<number> {
+  const { admin } = args;
+  const { id } = await ok(await admin.post(`/api/jobs/${args.jobId}/inspections`, { data: {} }), "create inspection");
+  let saved = await ok(await admin.put(`/api/inspections/${id}/draft`, { data: { version: 1, data: args.templateData } }), "save draft");
+  // Another spec may have changed the current rulebook since the template was approved: justify
+  // whatever now blocks submission, as an installer would.
+  const blockers = submissionBlockers(saved.findings ?? [], (args.templateData as InspectionData).justifications ?? {});
+  if (blockers.length) {
+    const data = structuredClone(args.templateData) as InspectionData;
+    data.justifications = {
+      ...data.justifications,
+      ...Object.fromEntries(blockers.map((f) => [findingKey(f), { text: "Test: accepted per the manufacturer's installation instructions.", reference: "Test manual" }])),
+    };
+    saved = await ok(await admin.put(`/api/inspections/${id}/draft`, { data: { version: saved.version, data } }), "save justified draft");
+  }
+  await ok(await (args.submitter ?? admin).post(`/api/inspections/${id}/submit`, { data: { version: saved.version, signature: { typedName: "Test Installer", signaturePng: await signaturePng() } } }), "submit");
+  return id;
+}
+
+/**
  * Builds the objects for one company. `admin` is an admin of the company; `approver` (a
  * supervisor or admin) approves, confirming with `approverPassword`.
  */
@@ -126,21 +149,7 @@ export async function buildCompanyWorld(args: {
   const job = (await ok(await admin.post("/api/jobs", { data: jobBody }), "create job")).job;
 
   // The approved one: data copied from an approved demo inspection (fails justified, checks answered).
-  const { id: approvedInspectionId } = await ok(await admin.post(`/api/jobs/${job.id}/inspections`, { data: {} }), "create inspection");
-  let saved = await ok(await admin.put(`/api/inspections/${approvedInspectionId}/draft`, { data: { version: 1, data: args.templateData } }), "save draft");
-  // Another spec may have changed the current rulebook since the template was approved: justify
-  // whatever now blocks submission, as an installer would.
-  const blockers = submissionBlockers(saved.findings ?? [], (args.templateData as InspectionData).justifications ?? {});
-  if (blockers.length) {
-    const data = structuredClone(args.templateData) as InspectionData;
-    data.justifications = {
-      ...data.justifications,
-      ...Object.fromEntries(blockers.map((f) => [findingKey(f), { text: "Security test: accepted per the manufacturer's installation instructions.", reference: "Test manual" }])),
-    };
-    saved = await ok(await admin.put(`/api/inspections/${approvedInspectionId}/draft`, { data: { version: saved.version, data } }), "save justified draft");
-  }
-  const version = saved.version;
-  await ok(await (args.submitter ?? admin).post(`/api/inspections/${approvedInspectionId}/submit`, { data: { version, signature: { typedName: "Security Installer", signaturePng: await signaturePng() } } }), "submit");
+  const approvedInspectionId = await submittedInspection({ admin, submitter: args.submitter, jobId: job.id, templateData: args.templateData });
   await ok(
     await approver.post(`/api/inspections/${approvedInspectionId}/approve`, { data: { signature: { typedName: args.approverName, signaturePng: await signaturePng() }, password: args.approverPassword } }),
     "approve",

@@ -88,6 +88,19 @@ describe("the fake SMTP server and the transport", () => {
     expect(newest.subject).toBe("Accepted");
   });
 
+  test("a fail flag naming an address refuses only the next message to that address", async () => {
+    fs.writeFileSync(path.join(outboxDir, FAIL_NEXT_FLAG), "Target@Example.test\n");
+    const before = (await listOutbox()).length;
+    await deliverMail({ to: "bystander@example.test", subject: "Someone else's", text: "x", html: "" });
+    expect(await listOutbox()).toHaveLength(before + 1);
+    expect(fs.existsSync(path.join(outboxDir, FAIL_NEXT_FLAG))).toBe(true);
+    const error = await expectRejection(deliverMail({ to: "target@example.test", subject: "Refused", text: "x", html: "" }));
+    expect((error as { responseCode?: number }).responseCode).toBe(451);
+    expect(fs.existsSync(path.join(outboxDir, FAIL_NEXT_FLAG))).toBe(false);
+    await deliverMail({ to: "target@example.test", subject: "Accepted", text: "x", html: "" });
+    expect(await listOutbox()).toHaveLength(before + 2);
+  });
+
   test("failFirst (FAKE_SMTP_FAIL=1) refuses only the first message", async () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "flueward-outbox-"));
     const failing = await startFakeSmtp({ port: 0, outboxDir: dir, failFirst: true });
