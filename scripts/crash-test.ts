@@ -7,7 +7,7 @@
  *
  *   npx next build && npx tsx scripts/crash-test.ts        (CRASH_KILLS=50 by default)
  *
- * Bounded: stops killing after CRASH_KILLS kills or 200 s, whichever comes first; exits 1 on
+ * Bounded: stops killing after CRASH_KILLS kills or 300 s, whichever comes first; exits 1 on
  * any loss, corruption, server error or too few kills.
  */
 import fs from "node:fs";
@@ -17,12 +17,12 @@ import { checkBlobReferences } from "../lib/ops/backup";
 import { AppServer, Client, DEMO, NoAnswer, exampleInspectionData, freePort, justificationsFor, prepareInstallation, randomInt, sha256, signaturePng, sleep, tail, type Reply } from "./durability/harness";
 
 const MIN_KILLS = Number(process.env.CRASH_KILLS ?? 50);
-const LOOP_BUDGET_MS = Number(process.env.CRASH_BUDGET_MS ?? 200_000);
-const HARD_LIMIT_MS = 4 * 60_000;
+const LOOP_BUDGET_MS = Number(process.env.CRASH_BUDGET_MS ?? 300_000);
+const HARD_LIMIT_MS = 7 * 60_000;
 const WRITERS = 3;
 const started = Date.now();
 
-// A watchdog: whatever happens, the script ends (and takes its server with it) within 4 minutes.
+// A watchdog: whatever happens, the script ends (and takes its server with it) within 7 minutes.
 let server: AppServer | null = null;
 const watchdog = setTimeout(() => {
   console.error("crash test: hard time limit reached");
