@@ -43,7 +43,7 @@ export function UploadCheck({ code }: { code: string }) {
       }}
     >
       <h2 className="text-lg font-bold">Check a PDF file</h2>
-      <p className="text-sm text-ink-600">The file never leaves this check: its fingerprint (SHA-256) is compared with the one stored when the record was signed.</p>
+      <p className="text-sm text-ink-600">The file is sent only to work out its fingerprint (SHA-256), which is compared with the one stored when the record was signed; the file itself is not kept.</p>
       <input type="hidden" name="code" value={code} />
       <label htmlFor="verify-file" className="label">
         Record PDF

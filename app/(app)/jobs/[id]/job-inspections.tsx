@@ -45,7 +45,9 @@ export function JobInspections({ jobId, inspections, canStart }: { jobId: number
       </div>
       {error ? <p role="alert" className="text-sm text-fail">{error}</p> : null}
       {inspections.length === 0 ? (
-        <p className="card p-4 text-sm text-ink-600">No inspection yet. Start one on site to check the venting and combustion air before leaving.</p>
+        <p className="card p-4 text-sm text-ink-600">
+          {canStart ? "No inspection yet. Start one on site to check the venting and combustion air before leaving." : "No inspection was made for this job."}
+        </p>
       ) : (
         <ul className="space-y-2">
           {inspections.map((i) => (
