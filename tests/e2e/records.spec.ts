@@ -7,7 +7,7 @@ import { SignInPage } from "./pages/sign-in-page";
 import { apiAs } from "./support/api";
 import { signaturePng } from "./support/signature";
 import { DEMO_ACCOUNTS } from "./support/accounts";
-import { submittedInspection, templateInspectionData, unique } from "./support/world";
+import { ok, submittedInspection, templateInspectionData, unique } from "./support/world";
 
 const DB_FILE = path.join(process.cwd(), "test-results/e2e-db/flueward.sqlite");
 const OUTBOX = path.join(process.cwd(), "test-results/e2e-outbox");
@@ -20,7 +20,7 @@ test.describe.configure({ mode: "serial" });
  */
 async function approveSubmitted(api: APIRequestContext, baseURL: string) {
   const admin = await apiAs(baseURL, "admin");
-  const job = (await (await admin.post("/api/jobs", { data: { customerName: `Records Test ${unique("job")}`, siteStreet: "2 Test Row", siteCity: "Testbury", status: "in_progress" } })).json()).job as { id: number };
+  const { job } = await ok(await admin.post("/api/jobs", { data: { customerName: `Records Test ${unique("job")}`, siteStreet: "2 Test Row", siteCity: "Testbury", status: "in_progress" } }), "create job");
   const target = { id: await submittedInspection({ admin, jobId: job.id, templateData: await templateInspectionData(admin) }) };
   const approve = await api.post(`/api/inspections/${target.id}/approve`, { data: { signature: { typedName: DEMO_ACCOUNTS.supervisor.name, signaturePng: await signaturePng() }, password: DEMO_ACCOUNTS.supervisor.password } });
   expect(approve.status(), await approve.text()).toBe(200);

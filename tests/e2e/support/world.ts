@@ -53,7 +53,7 @@ export function unique(prefix: string): string {
   return `${prefix}-${Date.now().toString(36)}-${crypto.randomBytes(3).toString("hex")}`;
 }
 
-async function ok(response: APIResponse, what: string): Promise<Record<string, any>> {
+export async function ok(response: APIResponse, what: string): Promise<Record<string, any>> {
   const text = await response.text();
   expect(response.status(), `${what}: ${text.slice(0, 500)}`).toBeLessThan(300);
   return text ? JSON.parse(text) : {};
