@@ -22,7 +22,9 @@ import { applianceCategory, groupConnectors, type VentRunContext } from "./check
 import { checkSupportsSpacing } from "./checks/supports-spacing";
 import { checkTerminationDistance } from "./checks/termination-distance";
 import { checkTerminationHeight } from "./checks/termination-height";
+import { checkVentAreaRatio } from "./checks/vent-area-ratio";
 import { checkVentCapacity } from "./checks/vent-capacity";
+import type { CommonVentSizing } from "./checks/common-vent-capacity";
 import { checkVentCategory } from "./checks/vent-category";
 import { checkVentMinHeight } from "./checks/vent-min-height";
 import type { ConnectorMaterial } from "./enums";
@@ -49,6 +51,8 @@ export interface VentRunSizing {
   readonly maxHorizontalConnectorFt: number | null;
   /** Capacity answer for a single-appliance vent, with the smallest fitting diameter. */
   readonly capacity: CapacitySizing | null;
+  /** Answer for a common vent: each connector and the common vent, with the smallest diameters that work. */
+  readonly common: CommonVentSizing | null;
 }
 
 /** Result of {@link evaluateVentRun}. */
@@ -117,12 +121,14 @@ export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance
     rb: rulebook,
     served,
     byId,
+    allAppliances: appliances,
     isCommon,
     category: categoryI ? (served.every((a) => applianceCategory(a) === "category_i") ? "category_i" : "unknown") : "other",
     connectors: groupConnectors(ventRun, served, byId),
     ventSystem: mechanical ? "mechanical_draft" : "natural_draft",
   };
   let capacity: CapacitySizing | null = null;
+  let common: CommonVentSizing | null = null;
   if (categoryI) {
     checkConnectorSlope(ctx, findings);
     checkConnectorHorizontalLength(ctx, findings);
@@ -130,7 +136,8 @@ export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance
   }
   checkConnectorDiameter(ctx, findings);
   if (categoryI) {
-    capacity = checkVentCapacity(ctx, findings, appliances);
+    ({ single: capacity, common } = checkVentCapacity(ctx, findings));
+    checkVentAreaRatio(ctx, findings);
     checkVentMinHeight(ctx, findings);
   }
   checkClearanceCombustibles(ctx, findings);
@@ -157,7 +164,7 @@ export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance
     const lim = mats.length ? maxHorizontalConnectorFt(rulebook.connectorShare, mats, ventRun.vent.heightFt) : null;
     maxHorizontal = lim ? lim.maxFt : null;
   }
-  return { findings, sizing: { segments, maxHorizontalConnectorFt: maxHorizontal, capacity } };
+  return { findings, sizing: { segments, maxHorizontalConnectorFt: maxHorizontal, capacity, common } };
 }
 
 /** Options of {@link evaluateCombustionAir}. */
@@ -229,7 +236,10 @@ export function evaluateOrphanedAppliance(
 ): Finding {
   const remaining = servedAppliances(ventRun, appliances).filter((a) => !removedApplianceIds.includes(a.id));
   const segments = ventRun.segments.filter((s) => !s.applianceId || !removedApplianceIds.includes(s.applianceId));
-  return checkOrphanedAppliance({ ...ventRun, segments }, remaining, appliances, rulebook);
+  const current: VentRun = { ...ventRun, segments, applianceIds: remaining.map((a) => a.id) };
+  // Two or more left: the vent is still common, re-checked against the multiple-appliance tables.
+  const stillCommon = remaining.length > 1 ? evaluateVentRun({ ...current, vent: { ...current.vent, serves: "common" } }, appliances, rulebook).findings.find((f) => f.code === "vent.capacity") ?? null : null;
+  return checkOrphanedAppliance(current, remaining, appliances, rulebook, stillCommon);
 }
 
 /** Counts findings per status and finds the worst. */

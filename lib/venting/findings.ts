@@ -47,6 +47,10 @@ export const FINDING_CODES = {
   connectorDiameter: "connector.diameter",
   ventCategory: "vent.category",
   ventCapacity: "vent.capacity",
+  connectorCapacity: "connector.capacity",
+  commonVentNoConnector: "common_vent.no_connector",
+  commonVentHorizontalLength: "common_vent.horizontal_length",
+  ventAreaRatio: "vent.area_ratio",
   ventMinHeight: "vent.min_height",
   clearanceCombustibles: "clearance.combustibles",
   supportsSpacing: "supports.spacing",
@@ -85,6 +89,8 @@ export interface Finding {
   readonly ruleRef: RuleRef | null;
   readonly target: FindingTarget;
   readonly safety: SafetyFlag | null;
+  /** The smallest diameter the company's tables allow here, for the installer to fetch. */
+  readonly smallest?: Quantity;
 }
 
 /** Entry of the finding catalogue. */
@@ -117,7 +123,25 @@ export const FINDING_CATALOGUE = {
   },
   "vent.capacity": {
     title: "Vent capacity",
-    description: "The appliance input lies between the minimum and maximum of the capacity table for the vent's height, lateral and diameter, after derating for extra turns.",
+    description:
+      "A single appliance's input lies between the minimum and maximum of the capacity table for the vent's height, lateral and diameter, after derating for extra turns; a common vent's combined input is within the common-vent table's maximum for its draft types, after its reductions.",
+  },
+  "connector.capacity": {
+    title: "Connector capacity (common vent)",
+    description:
+      "Each appliance's connector into a common vent holds its input between the connector table's minimum and maximum at the vent height and the connector's rise, after the reductions for extra turns and extra length.",
+  },
+  "common_vent.no_connector": {
+    title: "Connector of each appliance",
+    description: "Every appliance on a common vent has its own connector, and every connector segment says which appliance it serves.",
+  },
+  "common_vent.horizontal_length": {
+    title: "Common vent offset and manifold",
+    description: "An offset in the common vent and a manifold joining the connectors stay within their length per inch of common-vent diameter.",
+  },
+  "vent.area_ratio": {
+    title: "Vent not oversized",
+    description: "The vent's flow area is no more than the rulebook's multiple of the smallest draft-hood outlet or flue collar it serves.",
   },
   "vent.min_height": {
     title: "Vent height above collar",
@@ -221,10 +245,10 @@ export const MESSAGES = {
   },
   connectorLengthPerDiameter: {
     pass: (label: string, lengthFt: number, maxFt: number, diameterIn: number) =>
-      `The connector of ${label} is ${ft(lengthFt)}; the common-vent tables assume up to ${ft(maxFt)} for a ${inch(diameterIn)} connector.`,
+      `The connector of ${label} has ${ft(lengthFt)} of horizontal length; the common-vent tables assume up to ${ft(maxFt)} for a ${inch(diameterIn)} connector.`,
     warn: (label: string, lengthFt: number, maxFt: number, diameterIn: number, lossPct: number) =>
-      `The connector of ${label} is ${ft(lengthFt)}, longer than the ${ft(maxFt)} the tables assume for ${inch(diameterIn)}. Reduce the common vent's maximum capacity by ${n(lossPct, 1)} % when sizing, or shorten the connector.`,
-    needsInfo: (label: string) => `Enter the length and diameter of every segment of the connector of ${label}.`,
+      `The connector of ${label} has ${ft(lengthFt)} of horizontal length, more than the ${ft(maxFt)} the tables assume for ${inch(diameterIn)}: the connector's own maximum capacity (fan-assisted or natural-draft max in the connector table) is reduced by ${n(lossPct, 1)} %, and a fan-assisted minimum comes from the single-appliance table. The connector capacity finding applies this; shortening the connector removes it.`,
+    needsInfo: (label: string) => `Enter the diameter and orientation of every segment of the connector of ${label}, and the length of its horizontal segments.`,
   },
   connectorDiameter: {
     pass: (diameterIn: number, outletIn: number, label: string) =>
@@ -235,8 +259,16 @@ export const MESSAGES = {
     ventPass: (ventIn: number, outletIn: number) => `Vent ${inch(ventIn)} is not smaller than the ${inch(outletIn)} appliance outlet.`,
     ventReduced: (ventIn: number, outletIn: number, heightFt: number) =>
       `Vent ${inch(ventIn)} is one size smaller than the ${inch(outletIn)} outlet on a ${ft(heightFt)} vent. This is only acceptable within the reduction rules of your code (never a 3 in vent on a 4 in draft hood; fan-assisted maximum reduced); confirm the capacity with the table.`,
-    ventFail: (ventIn: number, outletIn: number, minHeightFt: number | null) =>
-      `Vent ${inch(ventIn)} is smaller than the ${inch(outletIn)} appliance outlet. ${minHeightFt === null ? "The rulebook sets no height at which a smaller vent may be considered" : `A smaller vent is considered only one size down on a vent at least ${ft(minHeightFt)} high`}; use a vent of at least ${inch(outletIn)}.`,
+    ventFail: (ventIn: number, outletIn: number, reason: string) =>
+      `Vent ${inch(ventIn)} is smaller than the ${inch(outletIn)} appliance outlet and may not be: ${reason} Use a vent of at least ${inch(outletIn)}.`,
+    reasonNoRule: () => "the rulebook sets no height at which a smaller vent may be considered.",
+    reasonTooShort: (heightFt: number, minHeightFt: number) =>
+      `a vent smaller than the outlet is considered only when it is at least ${ft(minHeightFt)} high, and this one is ${ft(heightFt)}.`,
+    reasonMoreThanOneSize: (ventIn: number, outletIn: number, oneSizeIn: number) =>
+      `only one table size smaller is allowed (${inch(oneSizeIn)} for a ${inch(outletIn)} outlet); ${inch(ventIn)} is more.`,
+    reasonOutletOver12: (outletIn: number) => `the reduction applies only to outlets of 12 in or less; this outlet is ${inch(outletIn)}.`,
+    reasonThreeOnFour: () => "a 3 in vent is never allowed on a 4 in draft-hood outlet.",
+    reasonNeedsHeight: () => "enter the vent height to see whether a smaller vent may be considered.",
     outletCitation:
       "Appliance outlet (flue collar or draft-hood outlet) as entered; not smaller unless the appliance instructions allow",
     commonPass: (ventIn: number, connectorIn: number) =>
@@ -269,8 +301,79 @@ export const MESSAGES = {
     fixSmallest: (d: number) => `The smallest diameter the table allows is ${inch(d)}.`,
     fixNone: () => "No diameter in the table fits; change the vent height or lateral, or the appliance.",
     derated: (pct: number) => `, after a ${n(pct, 1)} % reduction for extra turns`,
+    reducedVent: (pct: number) => `, after the ${n(pct, 1)} % reduction of the fan-assisted maximum for a vent smaller than the outlet`,
     interpolated: () => ", interpolated between table rows",
     conservative: () => ", from the conservative table rows",
+  },
+  commonVent: {
+    noConnector: (label: string) =>
+      `${label} is on the common vent but has no connector segment. Add its connector (each appliance needs its own) so it can be sized.`,
+    segmentWithoutAppliance: () => "Choose which appliance this connector segment belongs to: on a common vent each connector is sized for its own appliance.",
+    needsVent: () => "Enter the vent material and its total height H (from the highest draft-hood outlet or flue collar to the top) to size a common vent.",
+    connectorNeedsInfo: (label: string) =>
+      `Enter the input and draft type of ${label} and the material, diameter, orientation, length and rise of each piece of its connector to size it.`,
+    commonNeedsInfo: () => "Enter the input and draft type of every appliance on the vent and the common vent's diameter to size the common vent.",
+    noConnectorTable: () => "The rulebook's vent connector table (two or more appliances) has no rows for this vent and connector material at this diameter.",
+    noCommonTable: () => "The rulebook's common vent table has no rows for this vent and connector material at this diameter.",
+    heightOutside: (minFt: number, maxFt: number) => `The table covers vent heights of ${ft(minFt)} to ${ft(maxFt)}.`,
+    riseOutside: (minFt: number, maxFt: number) => `The table covers connector rises of ${ft(minFt)} to ${ft(maxFt)}.`,
+    missingRow: (heightFt: number, riseFt: number) => `The table has no row for ${ft(heightFt)} height with ${ft(riseFt)} rise.`,
+    minOutsideSingle: () =>
+      "This fan-assisted connector is longer than the tables assume, so its minimum comes from the single-appliance table, which has no value for this height and length.",
+    outsideTable: (label: string, what: string) =>
+      `The connector of ${label} is outside the company's table: ${what} Flueward does not extrapolate; size it from the full table in your code book.`,
+    commonOutsideTable: (what: string) =>
+      `The common vent is outside the company's table: ${what} Flueward does not extrapolate; size it from the full table in your code book.`,
+    connectorWhere: (d: number, material: string, riseFt: number, heightFt: number) =>
+      `a ${inch(d)} ${human(material)} connector with ${ft(riseFt)} rise on a ${ft(heightFt)} common vent`,
+    connectorNotes: (turnsPct: number, lengthPct: number, assumedFt: number, horizontalFt: number, minFromSingle: boolean, interpolated: boolean, conservative: boolean) => {
+      const parts: string[] = [];
+      if (interpolated) parts.push("interpolated between table rows");
+      if (conservative) parts.push("from the conservative table rows");
+      if (turnsPct > 0) parts.push(`maximum reduced ${n(turnsPct, 1)} % for turns beyond those the table assumes`);
+      if (lengthPct > 0)
+        parts.push(`connector maximum reduced ${n(lengthPct, 1)} % because its ${ft(horizontalFt)} horizontal length is over the ${ft(assumedFt)} the table assumes`);
+      if (minFromSingle) parts.push("minimum read from the single-appliance table, as the code requires for a longer fan-assisted connector");
+      return parts.length ? ` (${parts.join("; ")})` : "";
+    },
+    connectorPass: (label: string, input: number, min: number | null, max: number, where: string, notes: string, smallest: number | null) =>
+      `${label}: ${btuh(input)} is within ${min === null ? "the " : `${btuh(min)}–`}${btuh(max)}${min === null ? " maximum" : ""} for ${where}${notes}.${smallest === null ? "" : ` Smallest connector the tables allow: ${inch(smallest)}.`}`,
+    connectorOverMax: (label: string, input: number, max: number, where: string, notes: string, fix: string) =>
+      `${label}: ${btuh(input)} exceeds the ${btuh(max)} maximum for ${where}${notes}. ${fix}`,
+    connectorUnderMin: (label: string, input: number, min: number, where: string, notes: string, fix: string) =>
+      `${label}: ${btuh(input)} is below the ${btuh(min)} fan-assisted minimum for ${where}${notes}: the connector is too large and may condense. ${fix}`,
+    connectorNotListed: (label: string, fan: boolean, where: string, fix: string) =>
+      `${label}: the connector table gives no ${fan ? "fan-assisted" : "natural-draft"} value for ${where}, so this size is not permitted. ${fix}`,
+    connectorFixSmallest: (d: number) => `The smallest connector the tables allow is ${inch(d)}.`,
+    connectorFixNone: () => "No connector diameter in the table works; change the rise or the vent height, or size it from your code book.",
+    commonWhere: (d: number, heightFt: number, column: string) =>
+      `a ${inch(d)} common vent ${ft(heightFt)} high (${column === "fan_fan" ? "FAN+FAN" : column === "fan_nat" ? "FAN+NAT" : "NAT+NAT"})`,
+    commonNotes: (deratePct: number, interpolated: boolean, conservative: boolean) => {
+      const parts: string[] = [];
+      if (interpolated) parts.push("interpolated between table rows");
+      if (conservative) parts.push("from the conservative table row");
+      if (deratePct > 0) parts.push(`maximum reduced ${n(deratePct, 1)} % for turns and manifold in the common vent`);
+      return parts.length ? ` (${parts.join("; ")})` : "";
+    },
+    commonPass: (total: number, max: number, where: string, notes: string, smallest: number | null) =>
+      `The combined ${btuh(total)} is within the ${btuh(max)} maximum for ${where}${notes}.${smallest === null ? "" : ` Smallest common vent the tables allow: ${inch(smallest)}.`}`,
+    commonOverMax: (total: number, max: number, where: string, notes: string, fix: string) =>
+      `The combined ${btuh(total)} exceeds the ${btuh(max)} maximum for ${where}${notes}. ${fix}`,
+    commonNotListed: (where: string, fix: string) => `The common vent table gives no value for ${where}, so this size is not permitted. ${fix}`,
+    commonFixSmallest: (d: number) => `The smallest common vent the tables allow (not smaller than the largest connector) is ${inch(d)}.`,
+    commonFixNone: () => "No common-vent diameter in the table works; change the vent height or the appliances, or size it from your code book.",
+    horizontalPass: (what: string, lengthFt: number, maxFt: number, perIn: number, d: number) =>
+      `The common vent's ${what} of ${ft(lengthFt)} is within ${ft(maxFt)} (${n(perIn)} in per inch of its ${inch(d)} diameter).`,
+    horizontalFail: (what: string, lengthFt: number, maxFt: number, perIn: number, d: number) =>
+      `The common vent's ${what} of ${ft(lengthFt)} is longer than ${ft(maxFt)} (${n(perIn)} in per inch of its ${inch(d)} diameter). Shorten it or enlarge the common vent.`,
+  },
+  ventAreaRatio: {
+    pass: (ventIn: number, outletIn: number, ratio: number, max: number) =>
+      `The ${inch(ventIn)} vent has ${n(ratio, 1)} times the flow area of the smallest outlet it serves (${inch(outletIn)}); at most ${n(max, 1)} times is allowed.`,
+    fail: (ventIn: number, outletIn: number, ratio: number, max: number) =>
+      `The ${inch(ventIn)} vent has ${n(ratio, 1)} times the flow area of the ${inch(outletIn)} outlet it serves; at most ${n(max, 1)} times is allowed. An oversized vent stays cold and may condense or spill: use a smaller vent or a listed liner sized from the tables.`,
+    needsInfo: () => "Enter the vent diameter and the outlet diameter of every appliance on it to check that the vent is not oversized.",
+    masonry: () => "The area-ratio check reads round vents; for a lined masonry chimney compare the liner's area with the outlets by hand.",
   },
   ventMinHeight: {
     pass: (heightFt: number, minFt: number) => `The vent is ${ft(heightFt)} above the highest collar or draft hood; at least ${ft(minFt)} is needed.`,
@@ -414,5 +517,6 @@ export const MESSAGES = {
     needsInfo: (label: string, inner: string) => `${label}, now alone on the former common vent: ${inner}`,
     noneLeft: () => "No appliance is left on the vent; cap or remove it.",
     several: () => "More than one appliance is still on the vent; it is still common and is checked as such.",
+    stillCommon: (inner: string) => `The appliances left on the vent still share it, re-checked against the multiple-appliance tables: ${inner}`,
   },
 } as const;

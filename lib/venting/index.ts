@@ -73,6 +73,8 @@ export {
   terminationHeightRowSchema,
   terminationDistanceRowSchema,
   capacityRowSchema,
+  ventConnectorCapacityRowSchema,
+  commonVentCapacityRowSchema,
   louverShareRowSchema,
   flueCoLimitRowSchema,
 } from "./rulebook/tables";
@@ -84,6 +86,8 @@ export type {
   ColumnKind,
   TableDefinition,
   CapacityRow,
+  VentConnectorCapacityRow,
+  CommonVentCapacityRow,
   ParameterRow,
   TerminationHeightRow,
 } from "./rulebook/tables";
@@ -91,7 +95,7 @@ export { validateRulebookTable, RULEBOOK_MESSAGES } from "./rulebook/validate";
 export { validateRulebookContent } from "./rulebook/validate-content";
 export type { RulebookIssue } from "./rulebook/validate";
 export { prepareRulebook, RulebookInvalidError } from "./rulebook/prepare";
-export type { PreparedRulebook, RuleRef, Cited, CapacityGrid } from "./rulebook/prepare";
+export type { PreparedRulebook, RuleRef, Cited, CapacityGrid, CommonVentGrid, GridTableKey } from "./rulebook/prepare";
 export {
   evaluateVentRun,
   evaluateCombustionAir,
@@ -124,6 +128,17 @@ export {
 } from "./sizing/capacity";
 export type { CapacityQuery, CapacityLookup, CapacityValues, CapacityMiss, CapacityLimits, DerateRule, TurnsInput, SmallestDiameter } from "./sizing/capacity";
 export { assessSingleCapacity } from "./sizing/assess-capacity";
+export {
+  commonVentColumn,
+  commonVentLimit,
+  connectorLimits,
+  lengthMultipleLossPct,
+  smallestCommonVentDiameter,
+  smallestConnectorDiameter,
+  COMMON_COLUMN_FIELD,
+} from "./sizing/common-capacity";
+export type { CommonVentColumn, ConnectorProfile, ConnectorRules, ConnectorLimits, ConnectorReading, CommonVentLimit, CommonVentReading, TableMiss } from "./sizing/common-capacity";
+export type { CommonVentSizing, CommonConnectorSizing } from "./checks/common-vent-capacity";
 export type { CapacitySizing, CapacityAssessment } from "./sizing/assess-capacity";
 export {
   requiredVolumeCuFt,

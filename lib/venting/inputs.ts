@@ -82,6 +82,8 @@ export const ventSchema = z.object({
   turns45: count,
   turns90: count,
   serves: z.enum(["single", "common"]).nullish(),
+  /** Horizontal length of a manifold joining the connectors before the common vent, ft (0 or empty: none). */
+  manifoldLengthFt: measured,
 });
 
 /** A building opening near the termination. */

@@ -1,4 +1,5 @@
 import type { RulebookContent } from "../../../lib/venting";
+import { DEMO_COMMON_VENT_CAPACITY, DEMO_VENT_CONNECTOR_CAPACITY } from "./starter-multiple-appliance";
 
 /**
  * The starter rulebook seeded for a new company. Code values are entered from memory of what
@@ -27,6 +28,14 @@ export const STARTER_RULEBOOK = {
     { key: "capacity_assumed_90_turns_with_lateral", value: 2, unit: "count", citation: "Commonly IFGC 504.2.3 — from memory — verify against your adopted edition" },
     { key: "capacity_loss_per_extra_45_turn_pct", value: 5, unit: "%", citation: "Commonly IFGC 504.2.3; NFPA 54 13.1.3 (older editions: 10 % per extra 90° only) — from memory — verify against your adopted edition" },
     { key: "capacity_loss_per_extra_90_turn_pct", value: 10, unit: "%", citation: "Commonly IFGC 504.2.3; NFPA 54 13.1.3 — from memory — verify against your adopted edition" },
+    { key: "common_connector_assumed_90_turns", value: 2, unit: "count", citation: "2018 IFGC 504.3.7 (two 90° turns assumed in each connector) — from memory — verify against your adopted edition" },
+    { key: "common_vent_loss_per_45_turn_pct", value: 5, unit: "%", citation: "2018 IFGC 504.3.5–504.3.6 (older editions: −20 % for any offset) — from memory — verify against your adopted edition" },
+    { key: "common_vent_loss_per_90_turn_pct", value: 10, unit: "%", citation: "2018 IFGC 504.3.5–504.3.6 — from memory — verify against your adopted edition" },
+    { key: "common_vent_offset_max_in_per_in_diameter", value: 18, unit: "in/in", citation: "2018 IFGC 504.3.5 (offset ≤ 18 in per inch of common-vent diameter) — from memory — verify against your adopted edition" },
+    { key: "common_vent_manifold_loss_pct", value: 10, unit: "%", citation: "2018 IFGC 504.3.4 — from memory — verify against your adopted edition" },
+    { key: "common_vent_manifold_max_in_per_in_diameter", value: 18, unit: "in/in", citation: "2018 IFGC 504.3.4 (manifold ≤ 18 in per inch of common-vent diameter) — read in the published text" },
+    { key: "vent_max_area_ratio_to_outlet", value: 7, unit: "ratio", citation: "2018 IFGC Tables 504.2/504.3 notes, 504.3.21 (7 × the smallest outlet area) — from memory — verify against your adopted edition" },
+    { key: "vent_reduction_fan_max_loss_pct", value: 10, unit: "%", citation: "2018 IFGC 504.2.2; NFPA 54 13.1.2 (fan-assisted max × 0.90 on a vent one size smaller) — read in the published text" },
     { key: "air_volume_per_1000_btuh_cuft", value: 50, unit: "ft³ per 1,000 Btu/h", citation: "Commonly IFGC 304.5.1; NFPA 54 9.3.2.1 — from memory — verify against your adopted edition" },
     { key: "infiltration_constant_other_cuft", value: 21, unit: "ft³·ACH per 1,000 Btu/h", citation: "Commonly IFGC 304.5.2 — from memory — verify against your adopted edition" },
     { key: "infiltration_constant_fan_cuft", value: 15, unit: "ft³·ACH per 1,000 Btu/h", citation: "Commonly IFGC 304.5.2 — from memory — verify against your adopted edition" },
@@ -311,6 +320,8 @@ export const STARTER_RULEBOOK = {
     { ventMaterial: "type_b", connectorMaterial: "single_wall", heightFt: 30, lateralFt: 5, diameterIn: 8, fanMinBtuh: 76000, fanMaxBtuh: 349000, naturalMaxBtuh: 203000, citation: DEMO_CAPACITY_CITATION },
     { ventMaterial: "type_b", connectorMaterial: "single_wall", heightFt: 30, lateralFt: 10, diameterIn: 8, fanMinBtuh: 102000, fanMaxBtuh: 275000, naturalMaxBtuh: 152000, citation: DEMO_CAPACITY_CITATION },
   ],
+  ventConnectorCapacity: DEMO_VENT_CONNECTOR_CAPACITY,
+  commonVentCapacity: DEMO_COMMON_VENT_CAPACITY,
   louverShares: [
     { louver: "wood", freeAreaShare: 0.25, citation: "Commonly IFGC 304.10 (louver rating unknown) — from memory — verify against your adopted edition" },
     { louver: "metal", freeAreaShare: 0.75, citation: "Commonly IFGC 304.10 (louver rating unknown) — from memory — verify against your adopted edition" },

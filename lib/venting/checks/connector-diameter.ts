@@ -5,13 +5,43 @@ const CODE = FINDING_CODES.connectorDiameter;
 /** The requirement here is the appliance's own outlet, not a rulebook number. */
 const OUTLET_RULE = { citation: MESSAGES.connectorDiameter.outletCitation, ref: null } as const;
 
-/** Whether a vent one size below the outlet may be considered (the reduction conditions). */
+/** Why a vent smaller than the outlet may not be considered; null when it may. */
+export type VentReductionRefusal = "too_short" | "more_than_one_size" | "outlet_over_12" | "three_on_four";
+
+/**
+ * The reduction conditions for a vent smaller than the outlet (IFGC 504.2.2): at least the
+ * rulebook's height, outlets of 12 in or less, one table size at most, and never a 3 in vent on a
+ * 4 in draft hood. Returns the first condition that fails, so the message names that rule.
+ * @param oneSizeDownIn the next table diameter below the outlet
+ */
+export function ventReductionRefusal(
+  ventIn: number,
+  outletIn: number,
+  heightFt: number,
+  minHeightFt: number,
+  natural: boolean,
+  oneSizeDownIn: number,
+): VentReductionRefusal | null {
+  if (natural && ventIn <= 3 && outletIn >= 4) return "three_on_four";
+  if (outletIn > 12) return "outlet_over_12";
+  if (ventIn < oneSizeDownIn - 1e-9) return "more_than_one_size";
+  if (heightFt < minHeightFt) return "too_short";
+  return null;
+}
+
+/** Whether a vent one size below the outlet may be considered (every reduction condition holds). */
 export function ventReductionConsidered(ventIn: number, outletIn: number, heightFt: number, minHeightFt: number, natural: boolean): boolean {
-  if (heightFt < minHeightFt) return false;
-  if (outletIn > 12 || outletIn - ventIn > 1) return false;
-  // never a 3 in vent on a 4 in draft hood
-  if (natural && ventIn <= 3 && outletIn >= 4) return false;
-  return true;
+  return ventReductionRefusal(ventIn, outletIn, heightFt, minHeightFt, natural, outletIn - 1) === null;
+}
+
+/** The next diameter below the outlet among the capacity table's sizes for this vent (1 in less without a table). */
+function oneSizeDown(ctx: VentRunContext, outletIn: number): number {
+  let best: number | null = null;
+  for (const [pair, grids] of ctx.rb.capacity) {
+    if (ctx.run.vent.material && !pair.startsWith(`${ctx.run.vent.material}|`)) continue;
+    for (const g of grids) if (g.diameterIn < outletIn - 1e-9 && (best === null || g.diameterIn > best)) best = g.diameterIn;
+  }
+  return best ?? outletIn - 1;
 }
 
 /** Connectors not smaller than the outlet; the vent not smaller than the outlet or the largest connector. */
@@ -78,9 +108,34 @@ export function checkConnectorDiameter(ctx: VentRunContext, out: Finding[]): voi
   }
   const minH = param(ctx.rb, "vent_reduction_min_height_ft");
   const heightFt = vent.heightFt;
-  if (minH && known(heightFt) && ventReductionConsidered(vent.diameterIn, a.outletDiameterIn, heightFt, minH.value, a.draft !== "fan_assisted")) {
-    out.push(finding(CODE, "warn", m.ventReduced(vent.diameterIn, a.outletDiameterIn, heightFt), vt, minH, { measured, required }));
+  const oneDown = oneSizeDown(ctx, a.outletDiameterIn);
+  // Rules that do not depend on the height are checked first, so a refusal names the rule that fails.
+  const refusal = ventReductionRefusal(vent.diameterIn, a.outletDiameterIn, known(heightFt) ? heightFt : Number.POSITIVE_INFINITY, minH ? minH.value : 0, a.draft !== "fan_assisted", oneDown);
+  let reason: string | null = null;
+  switch (refusal) {
+    case "three_on_four":
+      reason = m.reasonThreeOnFour();
+      break;
+    case "outlet_over_12":
+      reason = m.reasonOutletOver12(a.outletDiameterIn);
+      break;
+    case "more_than_one_size":
+      reason = m.reasonMoreThanOneSize(vent.diameterIn, a.outletDiameterIn, oneDown);
+      break;
+    case "too_short":
+      reason = m.reasonTooShort(heightFt ?? 0, minH ? minH.value : 0);
+      break;
+    case null:
+      if (!minH) reason = m.reasonNoRule();
+      break;
+    default:
+      refusal satisfies never;
+  }
+  if (reason !== null) {
+    out.push(finding(CODE, "fail", m.ventFail(vent.diameterIn, a.outletDiameterIn, reason), vt, minH ?? OUTLET_RULE, { measured, required }));
+  } else if (!known(heightFt)) {
+    out.push(finding(CODE, "needs-info", m.ventFail(vent.diameterIn, a.outletDiameterIn, m.reasonNeedsHeight()), target("ventRun", null, "heightFt", "ventRun.vent.heightFt"), minH ?? OUTLET_RULE));
   } else {
-    out.push(finding(CODE, "fail", m.ventFail(vent.diameterIn, a.outletDiameterIn, minH ? minH.value : null), vt, minH ?? OUTLET_RULE, { measured, required }));
+    out.push(finding(CODE, "warn", m.ventReduced(vent.diameterIn, a.outletDiameterIn, heightFt), vt, minH ?? OUTLET_RULE, { measured, required }));
   }
 }

@@ -15,7 +15,12 @@ export function connectorLengthLossPct(lengthFt: number, assumedFt: number, loss
   return Math.min(100, extraMultiples * lossPerMultiplePct);
 }
 
-/** For a common vent: each appliance's connector is no longer than the length per inch of diameter the tables assume. */
+/**
+ * For a common vent: each appliance's connector keeps within the horizontal length per inch of
+ * diameter the multiple-appliance tables assume (measured, as the code measures it, on the
+ * horizontal run). Longer is allowed with the connector's own maximum reduced, which the connector
+ * capacity check applies; this finding says by how much.
+ */
 export function checkConnectorLengthPerDiameter(ctx: VentRunContext, out: Finding[]): void {
   if (!ctx.isCommon) return;
   const perIn = param(ctx.rb, "connector_max_length_ft_per_in_diameter");
@@ -34,16 +39,17 @@ export function checkConnectorLengthPerDiameter(ctx: VentRunContext, out: Findin
     let missing: number | null = null;
     for (const i of group.segmentIndexes) {
       const s = segs[i]!;
-      if (!known(s.lengthFt) || !known(s.diameterIn)) {
+      if (!known(s.diameterIn) || s.orientation == null || (s.orientation === "horizontal" && !known(s.lengthFt))) {
         missing ??= i;
         continue;
       }
-      lengthFt += s.lengthFt;
+      if (s.orientation === "horizontal") lengthFt += s.lengthFt ?? 0;
       if (s.diameterIn < diameterIn) diameterIn = s.diameterIn;
     }
     if (missing !== null) {
       const s = segs[missing]!;
-      out.push(finding(CODE, "needs-info", MESSAGES.connectorLengthPerDiameter.needsInfo(label), segmentTarget(missing, s, known(s.lengthFt) ? "diameterIn" : "lengthFt"), perIn));
+      const field = !known(s.diameterIn) ? "diameterIn" : s.orientation == null ? "orientation" : "lengthFt";
+      out.push(finding(CODE, "needs-info", MESSAGES.connectorLengthPerDiameter.needsInfo(label), segmentTarget(missing, s, field), perIn));
       continue;
     }
     const maxFt = perIn.value * diameterIn;

@@ -20,6 +20,8 @@ export interface FindingExtras {
   readonly measured?: Quantity;
   readonly required?: Requirement;
   readonly safety?: SafetyFlag | null;
+  /** The smallest diameter the tables allow, shown beside the finding. */
+  readonly smallest?: Quantity;
 }
 
 /** Builds a finding with the catalogue title. */
@@ -45,6 +47,7 @@ export function finding(
   };
   if (extras?.measured) f.measured = extras.measured;
   if (extras?.required) f.required = extras.required;
+  if (extras?.smallest) f.smallest = extras.smallest;
   return f;
 }
 
@@ -93,6 +96,8 @@ export interface VentRunContext {
   /** Appliances the run serves, in input order. */
   readonly served: readonly Appliance[];
   readonly byId: ReadonlyMap<string, Appliance>;
+  /** Every appliance of the inspection, in input order (for target paths). */
+  readonly allAppliances: readonly Appliance[];
   readonly isCommon: boolean;
   readonly category: CategoryStatus;
   /** Segments grouped by the appliance whose connector they form (null: not known). */

@@ -32,7 +32,53 @@ export const PARAMETER_DEFINITIONS = {
   },
   connector_capacity_loss_per_extra_length_multiple_pct: {
     unit: "%",
-    description: "Reduction of common-vent maximum capacity for each extra multiple of that connector length.",
+    description:
+      "Reduction of a connector's maximum capacity (fan-assisted or natural-draft max of the connector table) for each extra multiple of that horizontal length.",
+    min: 0,
+    max: 100,
+  },
+  common_connector_assumed_90_turns: {
+    unit: "count",
+    description: "90° turns the multiple-appliance connector table already assumes in each connector.",
+    min: 0,
+  },
+  common_vent_loss_per_45_turn_pct: {
+    unit: "%",
+    description: "Reduction of the common vent's maximum capacity for each turn of 45° or less in the common vent.",
+    min: 0,
+    max: 100,
+  },
+  common_vent_loss_per_90_turn_pct: {
+    unit: "%",
+    description: "Reduction of the common vent's maximum capacity for each turn over 45° up to 90° in the common vent.",
+    min: 0,
+    max: 100,
+  },
+  common_vent_offset_max_in_per_in_diameter: {
+    unit: "in/in",
+    description: "Longest horizontal offset of the common vent, in inches per inch of common-vent diameter.",
+    min: 0,
+  },
+  common_vent_manifold_loss_pct: {
+    unit: "%",
+    description: "Reduction of the common vent's maximum capacity when the connectors are joined in a manifold before the common vent.",
+    min: 0,
+    max: 100,
+  },
+  common_vent_manifold_max_in_per_in_diameter: {
+    unit: "in/in",
+    description: "Longest connector manifold, in inches per inch of common-vent diameter.",
+    min: 0,
+  },
+  vent_max_area_ratio_to_outlet: {
+    unit: "ratio",
+    description:
+      "Largest flow area of the vent as a multiple of the smallest draft-hood outlet or flue collar area it serves.",
+    min: 1,
+  },
+  vent_reduction_fan_max_loss_pct: {
+    unit: "%",
+    description: "Reduction of the table maximum for a fan-assisted appliance on a vent one size smaller than its outlet.",
     min: 0,
     max: 100,
   },

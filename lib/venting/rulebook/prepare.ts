@@ -2,7 +2,6 @@ import type { ConnectorMaterial, RatedLouverType, ApplianceKind } from "../enums
 import type { ParameterKey } from "./parameters";
 import {
   rulebookContentSchema,
-  type CapacityRow,
   type RulebookContent,
   type RulebookRow,
   type RulebookTableKey,
@@ -30,15 +29,27 @@ export interface IndexedRow<K extends RulebookTableKey> {
   readonly ref: RuleRef;
 }
 
+/** The tables read as two-way grids: single-appliance (height × lateral) and connector (height × rise). */
+export type GridTableKey = "capacity" | "ventConnectorCapacity";
+
 /** One diameter's capacity grid for a vent/connector material pair. */
-export interface CapacityGrid {
+export interface CapacityGrid<K extends GridTableKey = "capacity"> {
   readonly diameterIn: number;
   /** Heights present, ascending. */
   readonly heightsFt: readonly number[];
-  /** Laterals present, ascending. */
-  readonly lateralsFt: readonly number[];
-  /** Cells keyed `${heightFt}|${lateralFt}`. */
-  readonly cells: ReadonlyMap<string, IndexedRow<"capacity">>;
+  /** Values of the second axis present, ascending: laterals (single appliance) or connector rises. */
+  readonly secondAxisFt: readonly number[];
+  /** Cells keyed `${heightFt}|${secondAxisFt}`. */
+  readonly cells: ReadonlyMap<string, IndexedRow<K>>;
+}
+
+/** One diameter's column of the common vent table for a vent/connector material pair. */
+export interface CommonVentGrid {
+  readonly diameterIn: number;
+  /** Heights present, ascending. */
+  readonly heightsFt: readonly number[];
+  /** Cells keyed by height. */
+  readonly cells: ReadonlyMap<number, IndexedRow<"commonVentCapacity">>;
 }
 
 /** A rulebook indexed once for fast evaluation. Create with {@link prepareRulebook}. */
@@ -60,6 +71,10 @@ export interface PreparedRulebook {
   readonly terminationDistances: readonly IndexedRow<"terminationDistances">[];
   /** Keyed `${ventMaterial}|${connectorMaterial}`, grids sorted by diameter. */
   readonly capacity: ReadonlyMap<string, readonly CapacityGrid[]>;
+  /** Multiple-appliance connector tables, keyed `${ventMaterial}|${connectorMaterial}`, grids sorted by diameter. */
+  readonly ventConnectorCapacity: ReadonlyMap<string, readonly CapacityGrid<"ventConnectorCapacity">[]>;
+  /** Multiple-appliance common vent tables, keyed `${ventMaterial}|${connectorMaterial}`, sorted by diameter. */
+  readonly commonVentCapacity: ReadonlyMap<string, readonly CommonVentGrid[]>;
   readonly louverShares: ReadonlyMap<RatedLouverType, Cited<number>>;
   readonly flueCoLimits: ReadonlyMap<ApplianceKind, Cited<number>>;
 }
@@ -80,29 +95,49 @@ function cited<K extends RulebookTableKey>(table: K, rowIndex: number, value: nu
   return { value, citation, ref: { table, rowIndex } };
 }
 
-function buildCapacity(rows: readonly CapacityRow[]): Map<string, CapacityGrid[]> {
-  const byPair = new Map<string, Map<number, { heights: Set<number>; laterals: Set<number>; cells: Map<string, IndexedRow<"capacity">> }>>();
+function buildGrids<K extends GridTableKey>(table: K, rows: readonly RulebookRow<K>[], second: (row: RulebookRow<K>) => number): Map<string, CapacityGrid<K>[]> {
+  const byPair = new Map<string, Map<number, { heights: Set<number>; seconds: Set<number>; cells: Map<string, IndexedRow<K>> }>>();
   rows.forEach((row, rowIndex) => {
     const pair = `${row.ventMaterial}|${row.connectorMaterial}`;
     let diams = byPair.get(pair);
     if (!diams) byPair.set(pair, (diams = new Map()));
     let g = diams.get(row.diameterIn);
-    if (!g) diams.set(row.diameterIn, (g = { heights: new Set(), laterals: new Set(), cells: new Map() }));
+    if (!g) diams.set(row.diameterIn, (g = { heights: new Set(), seconds: new Set(), cells: new Map() }));
+    const s2 = second(row);
     g.heights.add(row.heightFt);
-    g.laterals.add(row.lateralFt);
-    g.cells.set(`${row.heightFt}|${row.lateralFt}`, { row, ref: { table: "capacity", rowIndex } });
+    g.seconds.add(s2);
+    g.cells.set(`${row.heightFt}|${s2}`, { row, ref: { table, rowIndex } });
   });
-  const out = new Map<string, CapacityGrid[]>();
+  const out = new Map<string, CapacityGrid<K>[]>();
   for (const [pair, diams] of byPair) {
-    const grids: CapacityGrid[] = [];
+    const grids: CapacityGrid<K>[] = [];
     for (const [diameterIn, g] of diams) {
       grids.push({
         diameterIn,
         heightsFt: [...g.heights].sort((a, b) => a - b),
-        lateralsFt: [...g.laterals].sort((a, b) => a - b),
+        secondAxisFt: [...g.seconds].sort((a, b) => a - b),
         cells: g.cells,
       });
     }
+    grids.sort((a, b) => a.diameterIn - b.diameterIn);
+    out.set(pair, grids);
+  }
+  return out;
+}
+
+function buildCommonVent(rows: readonly RulebookRow<"commonVentCapacity">[]): Map<string, CommonVentGrid[]> {
+  const byPair = new Map<string, Map<number, Map<number, IndexedRow<"commonVentCapacity">>>>();
+  rows.forEach((row, rowIndex) => {
+    const pair = `${row.ventMaterial}|${row.connectorMaterial}`;
+    let diams = byPair.get(pair);
+    if (!diams) byPair.set(pair, (diams = new Map()));
+    let cells = diams.get(row.diameterIn);
+    if (!cells) diams.set(row.diameterIn, (cells = new Map()));
+    cells.set(row.heightFt, { row, ref: { table: "commonVentCapacity", rowIndex } });
+  });
+  const out = new Map<string, CommonVentGrid[]>();
+  for (const [pair, diams] of byPair) {
+    const grids: CommonVentGrid[] = [...diams].map(([diameterIn, cells]) => ({ diameterIn, heightsFt: [...cells.keys()].sort((a, b) => a - b), cells }));
     grids.sort((a, b) => a.diameterIn - b.diameterIn);
     out.set(pair, grids);
   }
@@ -159,7 +194,9 @@ export function prepareRulebook(content: unknown): PreparedRulebook {
     passages,
     terminationHeights,
     terminationDistances,
-    capacity: buildCapacity(c.capacity),
+    capacity: buildGrids("capacity", c.capacity, (r) => r.lateralFt),
+    ventConnectorCapacity: buildGrids("ventConnectorCapacity", c.ventConnectorCapacity, (r) => r.riseFt),
+    commonVentCapacity: buildCommonVent(c.commonVentCapacity),
     louverShares,
     flueCoLimits,
   };

@@ -44,6 +44,8 @@ export interface TableDefinition {
   readonly columns: readonly ColumnDefinition[];
   /** Columns that together identify a row; two rows with the same values are duplicates. */
   readonly uniqueBy: readonly string[];
+  /** True for a table added after rulebooks were first stored: a stored version without it reads as empty. */
+  readonly addedLater?: boolean;
 }
 
 const citationColumn = {
@@ -162,6 +164,41 @@ export const RULEBOOK_TABLES = {
       citationColumn,
     ],
     uniqueBy: ["ventMaterial", "connectorMaterial", "heightFt", "lateralFt", "diameterIn"],
+  },
+  ventConnectorCapacity: {
+    title: "Vent connector capacity (two or more appliances)",
+    description:
+      "Each appliance's connector into a common vent: input limits by total vent height H, connector rise R and connector diameter. Leave a cell empty where the table gives no value.",
+    columns: [
+      { key: "ventMaterial", label: "Vent material", kind: "enum", options: VENT_MATERIALS, required: true },
+      { key: "connectorMaterial", label: "Connector material", kind: "enum", options: CONNECTOR_MATERIALS, required: true },
+      { key: "heightFt", label: "Vent height H", unit: "ft", kind: "number", required: true, min: 0 },
+      { key: "riseFt", label: "Connector rise R", unit: "ft", kind: "number", required: true, min: 0 },
+      { key: "diameterIn", label: "Connector diameter", unit: "in", kind: "number", required: true, min: 0 },
+      { key: "fanMinBtuh", label: "Fan-assisted min", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      { key: "fanMaxBtuh", label: "Fan-assisted max", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      { key: "naturalMaxBtuh", label: "Natural-draft max", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      citationColumn,
+    ],
+    uniqueBy: ["ventMaterial", "connectorMaterial", "heightFt", "riseFt", "diameterIn"],
+    addedLater: true,
+  },
+  commonVentCapacity: {
+    title: "Common vent capacity (two or more appliances)",
+    description:
+      "Largest combined input of the common vent by total vent height H and common-vent diameter, for two fan-assisted appliances, one of each, or two natural-draft. Leave a cell empty where the table gives no value.",
+    columns: [
+      { key: "ventMaterial", label: "Vent material", kind: "enum", options: VENT_MATERIALS, required: true },
+      { key: "connectorMaterial", label: "Connector material", kind: "enum", options: CONNECTOR_MATERIALS, required: true },
+      { key: "heightFt", label: "Vent height H", unit: "ft", kind: "number", required: true, min: 0 },
+      { key: "diameterIn", label: "Common vent diameter", unit: "in", kind: "number", required: true, min: 0 },
+      { key: "fanFanMaxBtuh", label: "FAN+FAN max", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      { key: "fanNatMaxBtuh", label: "FAN+NAT max", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      { key: "natNatMaxBtuh", label: "NAT+NAT max", unit: "Btu/h", kind: "number", required: false, min: 0 },
+      citationColumn,
+    ],
+    uniqueBy: ["ventMaterial", "connectorMaterial", "heightFt", "diameterIn"],
+    addedLater: true,
   },
   louverShares: {
     title: "Louver free-area share",

@@ -99,6 +99,31 @@ export const capacityRowSchema = z.object({
   naturalMaxBtuh: num.nullable(),
   citation,
 });
+/** Row of the `ventConnectorCapacity` table: one cell set of a multiple-appliance vent connector table. */
+export const ventConnectorCapacityRowSchema = z.object({
+  ventMaterial: z.enum(VENT_MATERIALS),
+  connectorMaterial: z.enum(CONNECTOR_MATERIALS),
+  /** Total vent height H, from the highest draft-hood outlet or flue collar to the top of the common vent, ft. */
+  heightFt: num,
+  /** Connector rise R, from the appliance's outlet to where its gases meet the common vent, ft. */
+  riseFt: num,
+  diameterIn: num,
+  fanMinBtuh: num.nullable(),
+  fanMaxBtuh: num.nullable(),
+  naturalMaxBtuh: num.nullable(),
+  citation,
+});
+/** Row of the `commonVentCapacity` table: the common vent of a multiple-appliance table, by height and diameter. */
+export const commonVentCapacityRowSchema = z.object({
+  ventMaterial: z.enum(VENT_MATERIALS),
+  connectorMaterial: z.enum(CONNECTOR_MATERIALS),
+  heightFt: num,
+  diameterIn: num,
+  fanFanMaxBtuh: num.nullable(),
+  fanNatMaxBtuh: num.nullable(),
+  natNatMaxBtuh: num.nullable(),
+  citation,
+});
 /** Row of the `louverShares` table. */
 export const louverShareRowSchema = z.object({
   louver: z.enum(RATED_LOUVER_TYPES),
@@ -128,6 +153,9 @@ export const rulebookContentSchema = z.object({
   terminationHeights: z.array(terminationHeightRowSchema),
   terminationDistances: z.array(terminationDistanceRowSchema),
   capacity: z.array(capacityRowSchema),
+  // Rulebook versions stored before the multiple-appliance tables existed read as empty tables.
+  ventConnectorCapacity: z.array(ventConnectorCapacityRowSchema).default([]),
+  commonVentCapacity: z.array(commonVentCapacityRowSchema).default([]),
   louverShares: z.array(louverShareRowSchema),
   flueCoLimits: z.array(flueCoLimitRowSchema),
 });
@@ -139,5 +167,9 @@ export type RulebookContent = z.infer<typeof rulebookContentSchema>;
 export type ParameterRow = z.infer<typeof parameterRowSchema>;
 /** Capacity row. */
 export type CapacityRow = z.infer<typeof capacityRowSchema>;
+/** Multiple-appliance vent connector capacity row. */
+export type VentConnectorCapacityRow = z.infer<typeof ventConnectorCapacityRowSchema>;
+/** Multiple-appliance common vent capacity row. */
+export type CommonVentCapacityRow = z.infer<typeof commonVentCapacityRowSchema>;
 /** Termination-height row. */
 export type TerminationHeightRow = z.infer<typeof terminationHeightRowSchema>;

@@ -1,5 +1,5 @@
 import { PARAMETER_DEFINITIONS, type ParameterDefinition } from "./parameters";
-import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "./table-definitions";
+import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey, type TableDefinition } from "./table-definitions";
 import type { RulebookContent } from "./tables";
 
 /*
@@ -56,8 +56,8 @@ export const RULEBOOK_MESSAGES = {
     `Row ${row}: fan-assisted min (${min} Btu/h) is above the fan-assisted max (${max} Btu/h); swap or correct them.`,
   capacityEmpty: (row: number) =>
     `Row ${row} has no capacity value at all; fill in at least one, or remove the row.`,
-  capacityGridHole: (ventMaterial: string, connectorMaterial: string, diameterIn: number, heightFt: number, lateralFt: number) =>
-    `The ${ventMaterial} vent / ${connectorMaterial} connector table at ${diameterIn} in has no row for height ${heightFt} ft with lateral ${lateralFt} ft; add it so values between rows can be interpolated.`,
+  capacityGridHole: (ventMaterial: string, connectorMaterial: string, diameterIn: number, heightFt: number, secondFt: number, secondWord = "lateral") =>
+    `The ${ventMaterial} vent / ${connectorMaterial} connector table at ${diameterIn} in has no row for height ${heightFt} ft with ${secondWord} ${secondFt} ft; add it so values between rows can be interpolated.`,
   wrongType: (row: number, label: string, expected: string) =>
     `Row ${row}: ${label} must be ${expected}.`,
   badOption: (row: number, label: string, options: readonly string[]) =>
@@ -94,6 +94,9 @@ function cellProblem(col: ColumnDefinition, value: unknown, row: number): string
 
 /** Problems of type and shape: a missing table, a row that is not a row, a word where a number belongs. */
 function checkShape(table: RulebookTableKey, rows: unknown): RulebookIssue[] {
+  const def: TableDefinition = RULEBOOK_TABLES[table];
+  // A table added after rulebooks were first stored reads as empty in an older version.
+  if (rows === undefined && def.addedLater) return [];
   if (!Array.isArray(rows)) {
     return [{ table, rowIndex: null, column: null, message: RULEBOOK_MESSAGES.missingTable(RULEBOOK_TABLES[table].title), severity: "error" }];
   }
@@ -198,34 +201,40 @@ function checkTerminationHeights(rows: RulebookContent["terminationHeights"], ou
   });
 }
 
-function checkCapacity(rows: RulebookContent["capacity"], out: RulebookIssue[]): void {
-  const groups = new Map<string, { heights: Set<number>; laterals: Set<number>; cells: Set<string>; sample: RulebookContent["capacity"][number] }>();
-  rows.forEach((r, i) => {
+/** The capacity tables read as grids: single-appliance (height × lateral) and connector (height × rise). */
+type GridTable = "capacity" | "ventConnectorCapacity";
+
+function checkCapacity<T extends GridTable>(table: T, rows: RulebookContent[T], out: RulebookIssue[]): void {
+  const axis = table === "capacity" ? "lateralFt" : "riseFt";
+  const axisWord = table === "capacity" ? "lateral" : "connector rise";
+  const groups = new Map<string, { heights: Set<number>; seconds: Set<number>; cells: Set<string>; sample: RulebookContent[T][number] }>();
+  rows.forEach((r: RulebookContent[T][number], i) => {
     if (r.fanMinBtuh !== null && r.fanMaxBtuh !== null && r.fanMinBtuh > r.fanMaxBtuh) {
-      out.push({ table: "capacity", rowIndex: i, column: "fanMinBtuh", message: RULEBOOK_MESSAGES.capacityMinAboveMax(i + 1, r.fanMinBtuh, r.fanMaxBtuh), severity: "error" });
+      out.push({ table, rowIndex: i, column: "fanMinBtuh", message: RULEBOOK_MESSAGES.capacityMinAboveMax(i + 1, r.fanMinBtuh, r.fanMaxBtuh), severity: "error" });
     }
     if (r.fanMinBtuh === null && r.fanMaxBtuh === null && r.naturalMaxBtuh === null) {
-      out.push({ table: "capacity", rowIndex: i, column: null, message: RULEBOOK_MESSAGES.capacityEmpty(i + 1), severity: "warning" });
+      out.push({ table, rowIndex: i, column: null, message: RULEBOOK_MESSAGES.capacityEmpty(i + 1), severity: "warning" });
     }
+    const second = (r as Record<string, unknown>)[axis] as number;
     const g = `${r.ventMaterial}|${r.connectorMaterial}|${r.diameterIn}`;
     let grp = groups.get(g);
     if (!grp) {
-      grp = { heights: new Set(), laterals: new Set(), cells: new Set(), sample: r };
+      grp = { heights: new Set(), seconds: new Set(), cells: new Set(), sample: r };
       groups.set(g, grp);
     }
     grp.heights.add(r.heightFt);
-    grp.laterals.add(r.lateralFt);
-    grp.cells.add(`${r.heightFt}|${r.lateralFt}`);
+    grp.seconds.add(second);
+    grp.cells.add(`${r.heightFt}|${second}`);
   });
   for (const grp of groups.values()) {
     for (const h of [...grp.heights].sort((a, b) => a - b)) {
-      for (const l of [...grp.laterals].sort((a, b) => a - b)) {
+      for (const l of [...grp.seconds].sort((a, b) => a - b)) {
         if (!grp.cells.has(`${h}|${l}`)) {
           out.push({
-            table: "capacity",
+            table,
             rowIndex: null,
             column: null,
-            message: RULEBOOK_MESSAGES.capacityGridHole(grp.sample.ventMaterial, grp.sample.connectorMaterial, grp.sample.diameterIn, h, l),
+            message: RULEBOOK_MESSAGES.capacityGridHole(grp.sample.ventMaterial, grp.sample.connectorMaterial, grp.sample.diameterIn, h, l, axisWord),
             severity: "warning",
           });
         }
@@ -234,12 +243,22 @@ function checkCapacity(rows: RulebookContent["capacity"], out: RulebookIssue[]):
   }
 }
 
+function checkCommonVentCapacity(rows: RulebookContent["commonVentCapacity"], out: RulebookIssue[]): void {
+  rows.forEach((r, i) => {
+    if (r.fanFanMaxBtuh === null && r.fanNatMaxBtuh === null && r.natNatMaxBtuh === null) {
+      out.push({ table: "commonVentCapacity", rowIndex: i, column: null, message: RULEBOOK_MESSAGES.capacityEmpty(i + 1), severity: "warning" });
+    }
+  });
+}
+
 function validateParsedTable<K extends RulebookTableKey>(table: K, rows: RulebookContent[K]): RulebookIssue[] {
   const out: RulebookIssue[] = [];
   checkColumns(table, rows as readonly Record<string, unknown>[], out);
   if (table === "parameters") checkParameters(rows as RulebookContent["parameters"], out);
   else if (table === "terminationHeights") checkTerminationHeights(rows as RulebookContent["terminationHeights"], out);
-  else if (table === "capacity") checkCapacity(rows as RulebookContent["capacity"], out);
+  else if (table === "capacity") checkCapacity("capacity", rows as RulebookContent["capacity"], out);
+  else if (table === "ventConnectorCapacity") checkCapacity("ventConnectorCapacity", rows as RulebookContent["ventConnectorCapacity"], out);
+  else if (table === "commonVentCapacity") checkCommonVentCapacity(rows as RulebookContent["commonVentCapacity"], out);
   return out;
 }
 
@@ -250,5 +269,6 @@ function validateParsedTable<K extends RulebookTableKey>(table: K, rows: Ruleboo
 export function validateRulebookTable<K extends RulebookTableKey>(table: K, rows: unknown): RulebookIssue[] {
   const shape = checkShape(table, rows);
   if (shape.length > 0) return shape;
+  if (rows === undefined) return [];
   return validateParsedTable(table, rows as RulebookContent[K]);
 }

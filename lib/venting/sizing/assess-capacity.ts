@@ -90,8 +90,21 @@ export function assessSingleCapacity(run: VentRun, appliance: Appliance, applian
     };
   }
   const rule: DerateRule = { assumed90WithLateral: assumed?.value ?? 0, lossPer45Pct: l45?.value ?? 0, lossPer90Pct: l90?.value ?? 0 };
-  const derate = deratePct({ turns45, turns90, hasLateral }, rule);
+  const turnsDerate = deratePct({ turns45, turns90, hasLateral }, rule);
   const fan = appliance.draft === "fan_assisted";
+  // A fan-assisted appliance on a vent one size smaller than its outlet: the table maximum is
+  // reduced (IFGC 504.2.2 states 10 %), in the numbers, not only in words.
+  let reducedVentPct = 0;
+  let reducedVentRule: { citation: string } | null = null;
+  if (fan && typeof appliance.outletDiameterIn === "number" && vent.diameterIn < appliance.outletDiameterIn) {
+    const red = rb.params.get("vent_reduction_fan_max_loss_pct");
+    if (!red) {
+      return { status: "needs-info", message: MESSAGES.missingRule("the fan-assisted maximum's reduction on a vent smaller than the outlet", "Parameters"), rule: null, target: VENT_TARGET("diameterIn"), sizing: null };
+    }
+    reducedVentPct = red.value;
+    reducedVentRule = red;
+  }
+  const derate = Math.min(100, turnsDerate + reducedVentPct);
   const q = { ventMaterial: vent.material, connectorMaterial, diameterIn: vent.diameterIn, heightFt: vent.heightFt, lateralFt };
   const look = lookupCapacity(rb, q, interpolate);
   const dTarget = VENT_TARGET("diameterIn");
@@ -103,20 +116,21 @@ export function assessSingleCapacity(run: VentRun, appliance: Appliance, applian
       case "height_outside":
         what = `The table covers vent heights of ${look.minFt}–${look.maxFt} ft; this vent is ${vent.heightFt} ft.`;
         break;
-      case "lateral_outside":
+      case "second_outside":
         what = `The table covers laterals of ${look.minFt}–${look.maxFt} ft; this run has ${Math.round(lateralFt * 100) / 100} ft.`;
         break;
       case "missing_row":
-        what = `The table has no row for ${look.heightFt} ft height with ${look.lateralFt} ft lateral at ${vent.diameterIn} in.`;
+        what = `The table has no row for ${look.heightFt} ft height with ${look.secondFt} ft lateral at ${vent.diameterIn} in.`;
         break;
       default:
         look satisfies never;
         what = "";
     }
-    return { status: "needs-info", message: m.outsideTable(what), rule: null, target: look.reason === "lateral_outside" ? VENT_TARGET("lateralFt") : VENT_TARGET("heightFt"), sizing: null };
+    return { status: "needs-info", message: m.outsideTable(what), rule: null, target: look.reason === "second_outside" ? VENT_TARGET("lateralFt") : VENT_TARGET("heightFt"), sizing: null };
   }
   const limits = limitsFor(look, fan, derate);
-  const smallest = smallestFittingDiameter(rb, q, input, fan, derate, interpolate, appliance.outletDiameterIn ?? 0);
+  // Diameters not below the outlet carry no reduced-vent loss.
+  const smallest = smallestFittingDiameter(rb, q, input, fan, turnsDerate, interpolate, appliance.outletDiameterIn ?? 0);
   const sizing: CapacitySizing = {
     diameterIn: vent.diameterIn,
     heightFt: vent.heightFt,
@@ -128,9 +142,9 @@ export function assessSingleCapacity(run: VentRun, appliance: Appliance, applian
     conservative: look.conservative,
     smallestDiameterIn: smallest ? smallest.diameterIn : null,
   };
-  const note = `${look.interpolated ? m.interpolated() : look.conservative ? m.conservative() : ""}${derate > 0 ? m.derated(derate) : ""}`;
+  const note = `${look.interpolated ? m.interpolated() : look.conservative ? m.conservative() : ""}${turnsDerate > 0 ? m.derated(turnsDerate) : ""}${reducedVentPct > 0 ? m.reducedVent(reducedVentPct) : ""}`;
   const fix = smallest ? m.fixSmallest(smallest.diameterIn) : m.fixNone();
-  const rule2 = { citation: look.citation, ref: look.ref };
+  const rule2 = { citation: reducedVentRule && !look.citation.includes(reducedVentRule.citation) ? `${look.citation}; ${reducedVentRule.citation}` : look.citation, ref: look.ref };
   const measured = { value: input, unit: "Btu/h" } as const;
   if (limits.maxBtuh === null) {
     return { status: "fail", message: m.notListed(vent.diameterIn, vent.heightFt, lateralFt, fan ? "fan-assisted" : "natural-draft", fix), measured, rule: rule2, target: dTarget, sizing };

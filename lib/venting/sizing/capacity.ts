@@ -1,6 +1,6 @@
 import { atLeast, atMost } from "../compare";
 import type { ConnectorMaterial, VentMaterial } from "../enums";
-import type { CapacityGrid, IndexedRow, PreparedRulebook, RuleRef } from "../rulebook/prepare";
+import type { CapacityGrid, GridTableKey, IndexedRow, PreparedRulebook, RuleRef } from "../rulebook/prepare";
 
 /** What to look up in the capacity table. */
 export interface CapacityQuery {
@@ -30,8 +30,9 @@ export interface CapacityValues {
 export type CapacityMiss =
   | { readonly reason: "no_table" }
   | { readonly reason: "height_outside"; readonly minFt: number; readonly maxFt: number }
-  | { readonly reason: "lateral_outside"; readonly minFt: number; readonly maxFt: number }
-  | { readonly reason: "missing_row"; readonly heightFt: number; readonly lateralFt: number };
+  /** Outside the second axis: the lateral (single-appliance table) or the connector rise (connector table). */
+  | { readonly reason: "second_outside"; readonly minFt: number; readonly maxFt: number }
+  | { readonly reason: "missing_row"; readonly heightFt: number; readonly secondFt: number };
 
 /** Result of {@link lookupCapacity}. */
 export type CapacityLookup = ({ readonly ok: true } & CapacityValues) | ({ readonly ok: false } & CapacityMiss);
@@ -59,14 +60,14 @@ export function lerp(a: number, b: number, t: number): number {
   return a + (b - a) * t;
 }
 
-function combine(
-  corners: readonly IndexedRow<"capacity">[],
+function combine<K extends GridTableKey>(
+  corners: readonly IndexedRow<K>[],
   field: Field,
   t: number,
   u: number,
   interpolate: boolean,
 ): number | null {
-  const [c00, c10, c01, c11] = corners as [IndexedRow<"capacity">, IndexedRow<"capacity">, IndexedRow<"capacity">, IndexedRow<"capacity">];
+  const [c00, c10, c01, c11] = corners as [IndexedRow<K>, IndexedRow<K>, IndexedRow<K>, IndexedRow<K>];
   const v00 = c00.row[field];
   const v10 = c10.row[field];
   const v01 = c01.row[field];
@@ -96,19 +97,23 @@ export function lookupCapacity(rb: PreparedRulebook, q: CapacityQuery, interpola
   return lookupInGrid(grid, q.heightFt, q.lateralFt, interpolate);
 }
 
-/** {@link lookupCapacity} on a known grid. */
-export function lookupInGrid(grid: CapacityGrid, heightFt: number, lateralFt: number, interpolate: boolean): CapacityLookup {
+/**
+ * {@link lookupCapacity} on a known grid: the single-appliance table (second axis: lateral) or a
+ * multiple-appliance connector table (second axis: connector rise).
+ */
+export function lookupInGrid<K extends GridTableKey>(grid: CapacityGrid<K>, heightFt: number, secondFt: number, interpolate: boolean): CapacityLookup {
   const hs = grid.heightsFt;
-  const ls = grid.lateralsFt;
+  const ls = grid.secondAxisFt;
+  const lateralFt = secondFt;
   const hb = bracket(hs, heightFt);
   if (!hb) return { ok: false, reason: "height_outside", minFt: hs[0] ?? 0, maxFt: hs[hs.length - 1] ?? 0 };
   const lb = bracket(ls, lateralFt);
-  if (!lb) return { ok: false, reason: "lateral_outside", minFt: ls[0] ?? 0, maxFt: ls[ls.length - 1] ?? 0 };
+  if (!lb) return { ok: false, reason: "second_outside", minFt: ls[0] ?? 0, maxFt: ls[ls.length - 1] ?? 0 };
   const h0 = hs[hb[0]]!;
   const h1 = hs[hb[1]]!;
   const l0 = ls[lb[0]]!;
   const l1 = ls[lb[1]]!;
-  const corners: IndexedRow<"capacity">[] = [];
+  const corners: IndexedRow<K>[] = [];
   for (const [h, l] of [
     [h0, l0],
     [h1, l0],
@@ -116,7 +121,7 @@ export function lookupInGrid(grid: CapacityGrid, heightFt: number, lateralFt: nu
     [h1, l1],
   ] as const) {
     const c = grid.cells.get(`${h}|${l}`);
-    if (!c) return { ok: false, reason: "missing_row", heightFt: h, lateralFt: l };
+    if (!c) return { ok: false, reason: "missing_row", heightFt: h, secondFt: l };
     corners.push(c);
   }
   const t = h1 === h0 ? 0 : (heightFt - h0) / (h1 - h0);

@@ -55,7 +55,7 @@ describe("capacity table lookup", () => {
   test.each([
     { heightFt: 9.9, lateralFt: 0, reason: "height_outside" },
     { heightFt: 20.1, lateralFt: 0, reason: "height_outside" },
-    { heightFt: 15, lateralFt: 10.5, reason: "lateral_outside" },
+    { heightFt: 15, lateralFt: 10.5, reason: "second_outside" },
   ])("refuses to extrapolate: $heightFt ft / lateral $lateralFt", ({ heightFt, lateralFt, reason }) => {
     const r = lookupCapacity(RB, { ...TB, diameterIn: 4, heightFt, lateralFt }, true);
     expect(r).toMatchObject({ ok: false, reason });
@@ -160,10 +160,12 @@ describe("vent.capacity", () => {
     expect(only(evaluateVentRun(noHeight, [furnace()], RB).findings, "vent.capacity").target.path).toBe("ventRun.vent.heightFt");
   });
 
-  test("common vents are referred to the multiple-appliance tables", () => {
+  test("a common vent with no multiple-appliance tables in the rulebook is needs-info, never a pass", () => {
+    const noTables = prepareRulebook({ ...structuredClone(TEST_CONTENT), ventConnectorCapacity: [], commonVentCapacity: [] });
     const r = ventRunSchema.parse({ ...goodRun(), vent: { ...goodRun().vent, serves: "common" } });
-    const f = only(evaluateVentRun(r, [furnace(), waterHeater()], RB).findings, "vent.capacity");
+    const f = only(evaluateVentRun(r, [furnace(), waterHeater()], noTables).findings, "vent.capacity");
     expect(f.status).toBe("needs-info");
+    expect(f.message).toContain("common vent table has no rows");
   });
 
   test("smallest diameter that fits", () => {
