@@ -161,6 +161,16 @@ export async function seed(knex: Knex): Promise<void> {
       notes: "Quote visit: furnace and water heater, possible chimney liner.",
       created_by: supervisorId,
     }),
+    job(companyA, 7, {
+      customer_name: "Ilse Marrow-Finch",
+      site_street: "17 Tansy Row",
+      site_city: "Ambervale",
+      status: "in_progress",
+      assigned_installer_id: installerId,
+      scheduled_for: dateIn(0),
+      notes: "Furnace replacement; the water heater shares the vent.",
+      created_by: supervisorId,
+    }),
     job(companyA, 6, {
       customer_name: "Ignatius Pellow",
       site_street: "9 Weir Cottages",

@@ -24,6 +24,44 @@ function exampleData(): InspectionData {
   return inspectionDataSchema.parse({ appliances: example.appliances, ventRun: example.ventRun, airSpace: example.airSpace, readings: example.readings });
 }
 
+/**
+ * The trade's most common replacement: a fan-assisted furnace and a draft-hood water heater on one
+ * Type B vent, each with its own single-wall connector. Entered with the furnace's connector one
+ * size too small for the demo tables, so the draft shows the smallest size that works.
+ */
+export function commonVentData(): InspectionData {
+  const connector = { material: "single_wall", clearanceIn: 6, supportsInstalled: 1, fastenersPerJoint: 3, joints: 1, sectionsLocked: true, passesThrough: "none", turns45: 0 };
+  return inspectionDataSchema.parse({
+    appliances: [
+      { id: "furnace", label: "Furnace (basement)", kind: "furnace", fuel: "natural_gas", inputBtuh: 100_000, category: "I", draft: "fan_assisted", outletDiameterIn: 4, listed: true, condensing: false },
+      { id: "water-heater", label: "Water heater", kind: "water_heater", fuel: "natural_gas", inputBtuh: 40_000, category: "I", draft: "natural", outletDiameterIn: 3, listed: true, condensing: false },
+    ],
+    ventRun: {
+      id: "vent-run",
+      applianceIds: ["furnace", "water-heater"],
+      segments: [
+        { id: "furnace-up", applianceId: "furnace", ...connector, diameterIn: 4, lengthFt: 2, orientation: "vertical", turns90: 0 },
+        { id: "furnace-across", applianceId: "furnace", ...connector, diameterIn: 4, lengthFt: 5, orientation: "horizontal", riseIn: 1.5, turns90: 1 },
+        { id: "heater-up", applianceId: "water-heater", ...connector, diameterIn: 4, lengthFt: 1.5, orientation: "vertical", turns90: 0 },
+        { id: "heater-across", applianceId: "water-heater", ...connector, diameterIn: 4, lengthFt: 3, orientation: "horizontal", riseIn: 1, turns90: 1 },
+      ],
+      vent: { material: "type_b", diameterIn: 5, heightFt: 18, lateralFt: 0, turns45: 0, turns90: 0, serves: "common", manifoldLengthFt: 0 },
+      termination: { roofPitchPer12: 6, heightAboveRoofFt: 2, capSizeIn: 5, listedCap: true, distanceToVerticalWallFt: 12, nearbyOpenings: [] },
+    },
+    airSpace: {
+      id: "air-space",
+      applianceRoomId: "basement",
+      rooms: [
+        { id: "basement", label: "Basement utility room", lengthFt: 30, widthFt: 25, heightFt: 8 },
+        { id: "rec-room", label: "Recreation room", lengthFt: 20, widthFt: 15, heightFt: 8, openToApplianceRoom: true },
+      ],
+      openings: [],
+    },
+    readings: [{ applianceId: "furnace" }, { applianceId: "water-heater" }],
+    notes: "Existing water heater stays; new furnace joins the existing 5 in Type B vent.",
+  });
+}
+
 export async function seed(knex: Knex): Promise<void> {
   const rulebook = prepareRulebook(STARTER_RULEBOOK);
   const items = DEFAULT_SITE_CHECK_ITEMS;
@@ -100,5 +138,7 @@ export async function seed(knex: Knex): Promise<void> {
     if (waiting) await insert(waiting.id, "submitted", justify(structuredClone(fixed)), 2);
     const working = byStatus("in_progress");
     if (working) await insert(working.id, "draft", exampleData(), 0);
+    const sharing = jobs.filter((j) => j.status === "in_progress")[1];
+    if (sharing) await insert(sharing.id, "draft", commonVentData(), 0);
   }
 }

@@ -325,7 +325,7 @@ export const MESSAGES = {
     commonOutsideTable: (what: string) =>
       `The common vent is outside the company's table: ${what} Flueward does not extrapolate; size it from the full table in your code book.`,
     connectorWhere: (d: number, material: string, riseFt: number, heightFt: number) =>
-      `a ${inch(d)} ${human(material)} connector with ${ft(riseFt)} rise on a ${ft(heightFt)} common vent`,
+      `a ${inch(d)} ${human(material)} connector with ${ft(riseFt)} rise on a common vent ${ft(heightFt)} high`,
     connectorNotes: (turnsPct: number, lengthPct: number, assumedFt: number, horizontalFt: number, minFromSingle: boolean, interpolated: boolean, conservative: boolean) => {
       const parts: string[] = [];
       if (interpolated) parts.push("interpolated between table rows");
