@@ -39,7 +39,7 @@ export function FindingsList({ findings, onSelect, showPasses = true }: { findin
               <FindingStatusChip status={finding.status} />
             </div>
             <p className="mt-1 text-sm text-ink-700">{finding.message}</p>
-            {finding.measured || requirement ? (
+            {finding.measured || requirement || finding.smallest ? (
               <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-sm">
                 {finding.measured ? (
                   <>
@@ -53,6 +53,14 @@ export function FindingsList({ findings, onSelect, showPasses = true }: { findin
                   <>
                     <dt className="text-ink-500">Required</dt>
                     <dd className="font-medium">{requirement}</dd>
+                  </>
+                ) : null}
+                {finding.smallest ? (
+                  <>
+                    <dt className="text-ink-500">Smallest that works</dt>
+                    <dd className="font-semibold text-ink-900" data-smallest>
+                      {formatNumber(finding.smallest.value)} {finding.smallest.unit} <span className="font-normal text-ink-500">(company tables)</span>
+                    </dd>
                   </>
                 ) : null}
               </dl>

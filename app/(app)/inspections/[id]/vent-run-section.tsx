@@ -141,6 +141,7 @@ export function VentRunSection({
         <QuantityInput control={control} name="ventRun.vent.turns90" label="90° turns in the vent" kind="count" />
         <QuantityInput control={control} name="ventRun.vent.turns45" label="45° turns in the vent" kind="count" />
         <SelectField control={control} name="ventRun.vent.serves" label="Serves" options={{ single: "One appliance", common: "Several appliances (common vent)" }} />
+        <QuantityInput control={control} name="ventRun.vent.manifoldLengthFt" label="Connector manifold length" kind="ft" hint="Only when the connectors join in a manifold before the common vent" />
         {sizing?.maxHorizontalConnectorFt != null ? (
           <Readout label="Longest horizontal connector allowed" value={`${formatNumber(sizing.maxHorizontalConnectorFt)} ft`} note="From the vent height and connector material in the rulebook" />
         ) : null}
@@ -150,6 +151,23 @@ export function VentRunSection({
             value={`${sizing.capacity.minBtuh != null ? formatNumber(sizing.capacity.minBtuh) : "—"} to ${sizing.capacity.maxBtuh != null ? formatNumber(sizing.capacity.maxBtuh) : "—"} Btu/h`}
             note={`${sizing.capacity.interpolated ? "Interpolated" : "Table row"}${sizing.capacity.deratePct ? `, derated ${formatNumber(sizing.capacity.deratePct)} % for extra turns` : ""}${sizing.capacity.smallestDiameterIn != null ? `; smallest that fits: ${formatNumber(sizing.capacity.smallestDiameterIn)} in` : ""}`}
           />
+        ) : null}
+        {sizing?.common ? (
+          <>
+            {sizing.common.connectors.map((c) => (
+              <Readout
+                key={c.applianceId}
+                label={`Connector of ${appliances.find((a) => a.id === c.applianceId)?.label || c.applianceId}`}
+                value={`${c.minBtuh != null ? `${formatNumber(c.minBtuh, 0)} to ` : "up to "}${c.maxBtuh != null ? formatNumber(c.maxBtuh, 0) : "—"} Btu/h at ${formatNumber(c.diameterIn)} in`}
+                note={`Rise ${formatNumber(c.riseFt)} ft, horizontal ${formatNumber(c.horizontalFt)} ft${c.deratePct ? `, maximum reduced ${formatNumber(c.deratePct)} %` : ""}; smallest that works: ${c.smallestDiameterIn != null ? `${formatNumber(c.smallestDiameterIn)} in` : "none in the table"}`}
+              />
+            ))}
+            <Readout
+              label={`Common vent${sizing.common.column ? ` (${sizing.common.column === "fan_fan" ? "FAN+FAN" : sizing.common.column === "fan_nat" ? "FAN+NAT" : "NAT+NAT"})` : ""}`}
+              value={`${sizing.common.totalInputBtuh != null ? formatNumber(sizing.common.totalInputBtuh, 0) : "—"} of ${sizing.common.maxBtuh != null ? formatNumber(sizing.common.maxBtuh, 0) : "—"} Btu/h`}
+              note={`Smallest that works: ${sizing.common.smallestDiameterIn != null ? `${formatNumber(sizing.common.smallestDiameterIn)} in` : "none in the table"}${sizing.common.deratePct ? `; maximum reduced ${formatNumber(sizing.common.deratePct)} %` : ""}`}
+            />
+          </>
         ) : null}
       </fieldset>
 

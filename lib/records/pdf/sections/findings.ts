@@ -1,7 +1,7 @@
 import type { InspectionFinding } from "@/lib/inspections/evaluate";
 import { FINDING_STATUSES, type FindingStatus } from "@/lib/venting";
 import { AREAS, areaOf, justificationFor, targetLabel, type RenderContext } from "../context";
-import { DASH, quantity, requirement, STATUS_COLOURS, STATUS_WORDS } from "../format";
+import { DASH, quantity, requirement, STATUS_COLOURS, STATUS_WORDS, withUnit } from "../format";
 import { drawTable, type Cell, type CellBlock, type Column } from "../table";
 import { COLOURS, SIZE } from "../theme";
 
@@ -24,6 +24,7 @@ function checkCell(ctx: RenderContext, f: InspectionFinding): Cell {
   const where = targetLabel(ctx.input, f);
   blocks.push({ text: where ? `${f.title} · ${where}` : f.title, weight: "bold", color: COLOURS.ink });
   blocks.push({ text: f.message, gapBefore: 1 });
+  if (f.smallest) blocks.push({ text: `Smallest that works (company tables): ${withUnit(f.smallest.value, f.smallest.unit)}`, weight: "bold", gapBefore: 1, size: SIZE.small });
   blocks.push({ text: `Source: ${f.citation ?? "no rulebook value"}`, size: SIZE.footer, color: COLOURS.muted, gapBefore: 1.5 });
   if (f.safety && f.status !== "pass") blocks.push({ text: SAFETY_WORDS[f.safety], weight: "bold", color: COLOURS.fail, gapBefore: 2 });
   const j = f.status === "fail" || f.status === "needs-info" ? justificationFor(ctx.input, f) : null;

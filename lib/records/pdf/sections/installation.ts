@@ -237,6 +237,34 @@ export function drawSegments(ctx: RenderContext, number: number): void {
       body,
     );
   }
+  const common = input.sizing.ventRun?.common;
+  if (common) {
+    const column = common.column === "fan_fan" ? "FAN+FAN" : common.column === "fan_nat" ? "FAN+NAT" : common.column === "nat_nat" ? "NAT+NAT" : "—";
+    drawTable(
+      layout,
+      cols(layout.width, [
+        ["Common vent sizing (company tables)", 2],
+        ["Installed", 0.8, "right"],
+        ["Allowed input", 1.6, "right"],
+        ["Smallest that works", 1, "right"],
+      ]),
+      [
+        ...common.connectors.map((c) => [
+          `Connector of ${applianceLabel(input, c.applianceId)} (rise ${withUnit(c.riseFt, "ft")}, horizontal ${withUnit(c.horizontalFt, "ft")})`,
+          withUnit(c.diameterIn, "in"),
+          `${typeof c.minBtuh === "number" ? `${withUnit(c.minBtuh, "Btu/h", 0)} to ` : "up to "}${typeof c.maxBtuh === "number" ? withUnit(c.maxBtuh, "Btu/h", 0) : "not permitted"}${c.deratePct ? ` (−${withUnit(c.deratePct, "%", 1)})` : ""}`,
+          typeof c.smallestDiameterIn === "number" ? withUnit(c.smallestDiameterIn, "in") : "none in the table",
+        ]),
+        [
+          `Common vent, ${column}, ${withUnit(common.heightFt, "ft")} high, combined ${withUnit(common.totalInputBtuh, "Btu/h", 0)}`,
+          withUnit(common.diameterIn, "in"),
+          `up to ${typeof common.maxBtuh === "number" ? withUnit(common.maxBtuh, "Btu/h", 0) : "—"}${common.deratePct ? ` (−${withUnit(common.deratePct, "%", 1)})` : ""}`,
+          typeof common.smallestDiameterIn === "number" ? withUnit(common.smallestDiameterIn, "in") : "none in the table",
+        ],
+      ],
+      { caption: "Common vent sizing" },
+    );
+  }
   const maxH = input.sizing.ventRun?.maxHorizontalConnectorFt;
   if (typeof maxH === "number") layout.paragraph(`Longest horizontal connector this vent height allows: ${withUnit(maxH, "ft")}.`, body);
 }
