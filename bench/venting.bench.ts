@@ -2,7 +2,7 @@
  * Engine benchmark: evaluates 10,000 varied vent runs and 10,000 air spaces against the starter
  * rulebook and prints median and 99th-percentile microseconds per evaluation.
  * Run: npx tsx bench/venting.bench.ts   (writes bench/results/venting.json)
- * Goals: median < 20 µs per vent run, < 5 µs per air space.
+ * Goals: median < 20 µs per vent run, < 5 µs per air space, < 50 µs per two-appliance common vent.
  */
 import { mkdirSync, writeFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
@@ -83,6 +83,23 @@ function ventRun(i: number): VentRun {
   });
 }
 
+/** A furnace and a water heater on one Type B vent, each with its own connector. */
+function commonVentCase(i: number): { run: VentRun; appliances: Appliance[] } {
+  const furnace = applianceSchema.parse({ id: `f${i}`, label: "Furnace", kind: "furnace", inputBtuh: pick([60_000, 80_000, 100_000, 120_000]), category: "I", draft: pick(["natural", "fan_assisted"] as const), outletDiameterIn: pick([4, 5]), listed: true });
+  const heater = applianceSchema.parse({ id: `w${i}`, label: "Water heater", kind: "water_heater", inputBtuh: pick([30_000, 40_000, 50_000]), category: "I", draft: "natural", outletDiameterIn: pick([3, 4]), listed: true });
+  const connector = (owner: string, d: number) => [
+    { id: `${owner}-up`, applianceId: owner, material: pick(["single_wall", "type_b"] as const), diameterIn: d, lengthFt: between(0.5, 3), orientation: "vertical", clearanceIn: between(1, 8), supportsInstalled: 1, fastenersPerJoint: 3, joints: 1, sectionsLocked: true, passesThrough: "none" },
+    { id: `${owner}-across`, applianceId: owner, material: pick(["single_wall", "type_b"] as const), diameterIn: d, lengthFt: between(1, 9), orientation: "horizontal", riseIn: between(0.5, 3), turns90: Math.floor(rand() * 3), clearanceIn: between(1, 8), supportsInstalled: 1, fastenersPerJoint: 3, joints: 1, sectionsLocked: true, passesThrough: "none" },
+  ];
+  const run = ventRunSchema.parse({
+    applianceIds: [furnace.id, heater.id],
+    segments: [...connector(furnace.id, pick([4, 5, 6])), ...connector(heater.id, pick([3, 4]))],
+    vent: { material: "type_b", diameterIn: pick([4, 5, 6, 7]), heightFt: between(6, 30), lateralFt: pick([0, 0, 1]), turns90: Math.floor(rand() * 2), serves: "common", manifoldLengthFt: pick([0, 0, 0, 1]) },
+    termination: { roofPitchPer12: between(0, 12), heightAboveRoofFt: between(0.5, 4), listedCap: true, capSizeIn: 6, distanceToVerticalWallFt: between(2, 20), nearbyOpenings: [] },
+  });
+  return { run, appliances: [furnace, heater] };
+}
+
 function airSpace(i: number): AirSpace {
   const rooms = [{ id: `r${i}`, lengthFt: between(6, 30), widthFt: between(6, 30), heightFt: between(7, 10) }];
   if (rand() > 0.5) rooms.push({ id: `r${i}b`, lengthFt: between(6, 30), widthFt: between(6, 30), heightFt: 8 });
@@ -123,18 +140,23 @@ function time<T>(inputs: readonly T[], fn: (x: T) => unknown): Float64Array {
 const rb = prepareRulebook(STARTER_RULEBOOK);
 const runs: { run: VentRun; appliances: Appliance[] }[] = [];
 const spaces: { space: AirSpace; appliances: Appliance[] }[] = [];
+const commons: { run: VentRun; appliances: Appliance[] }[] = [];
 for (let i = 0; i < N + WARMUP; i++) {
   const a = appliance(i);
   runs.push({ run: ventRun(i), appliances: [a] });
+  commons.push(commonVentCase(i));
   spaces.push({ space: airSpace(i), appliances: rand() > 0.5 ? [a, appliance(i + N * 3)] : [a] });
 }
 
 let findingsVent = 0;
 let findingsAir = 0;
+let findingsCommon = 0;
 time(runs.slice(0, WARMUP), (x) => evaluateVentRun(x.run, x.appliances, rb));
 time(spaces.slice(0, WARMUP), (x) => evaluateCombustionAir(x.space, x.appliances, rb));
+time(commons.slice(0, WARMUP), (x) => evaluateVentRun(x.run, x.appliances, rb));
 const vent = stats(time(runs.slice(WARMUP), (x) => (findingsVent += evaluateVentRun(x.run, x.appliances, rb).findings.length)));
 const air = stats(time(spaces.slice(WARMUP), (x) => (findingsAir += evaluateCombustionAir(x.space, x.appliances, rb).findings.length)));
+const common = stats(time(commons.slice(WARMUP), (x) => (findingsCommon += evaluateVentRun(x.run, x.appliances, rb).findings.length)));
 
 const result = {
   node: process.version,
@@ -142,10 +164,12 @@ const result = {
   evaluations: N,
   ventRun: { ...vent, goalMedianUs: 20, meetsGoal: vent.medianUs < 20, findingsPerEvaluation: findingsVent / N },
   airSpace: { ...air, goalMedianUs: 5, meetsGoal: air.medianUs < 5, findingsPerEvaluation: findingsAir / N },
+  commonVent: { ...common, goalMedianUs: 50, meetsGoal: common.medianUs < 50, findingsPerEvaluation: findingsCommon / N },
 };
 mkdirSync(new URL("./results/", import.meta.url), { recursive: true });
 writeFileSync(new URL("./results/venting.json", import.meta.url), `${JSON.stringify(result, null, 2)}\n`);
 const f = (v: number) => v.toFixed(2).padStart(7);
 console.log(`vent run   (${N}): median ${f(vent.medianUs)} µs  p99 ${f(vent.p99Us)} µs  (goal median < 20 µs) ${vent.medianUs < 20 ? "OK" : "MISSED"}`);
 console.log(`air space  (${N}): median ${f(air.medianUs)} µs  p99 ${f(air.p99Us)} µs  (goal median < 5 µs) ${air.medianUs < 5 ? "OK" : "MISSED"}`);
+console.log(`common vent (${N}): median ${f(common.medianUs)} µs  p99 ${f(common.p99Us)} µs  (goal median < 50 µs) ${common.medianUs < 50 ? "OK" : "MISSED"}`);
 console.log("written bench/results/venting.json");
