@@ -6,6 +6,7 @@ import {
   ORIENTATIONS,
   RATED_LOUVER_TYPES,
   RESTRICTED_PASSAGES,
+  RETURN_AIR_SPACES,
   TERMINATION_OPENINGS,
   VENT_MATERIALS,
   VENT_SYSTEMS,
@@ -112,6 +113,14 @@ export const flueCoLimitRowSchema = z.object({
   citation,
 });
 
+/** Row of the `returnAirSpaces` table: whether return air may be drawn from a kind of space. */
+export const returnAirSpaceRowSchema = z.object({
+  space: z.enum(RETURN_AIR_SPACES),
+  prohibited: z.boolean(),
+  exceptionNote: z.string(),
+  citation,
+});
+
 /** The row type of a table. */
 export type RulebookRow<K extends RulebookTableKey> = z.infer<typeof rulebookContentSchema>[K][number];
 
@@ -130,6 +139,8 @@ export const rulebookContentSchema = z.object({
   capacity: z.array(capacityRowSchema),
   louverShares: z.array(louverShareRowSchema),
   flueCoLimits: z.array(flueCoLimitRowSchema),
+  // Rulebook versions stored before return air was checked have no such table.
+  returnAirSpaces: z.array(returnAirSpaceRowSchema).default([]),
 });
 
 /** Rulebook content as stored in a rulebook version. */
@@ -139,5 +150,7 @@ export type RulebookContent = z.infer<typeof rulebookContentSchema>;
 export type ParameterRow = z.infer<typeof parameterRowSchema>;
 /** Capacity row. */
 export type CapacityRow = z.infer<typeof capacityRowSchema>;
+/** Return-air space row. */
+export type ReturnAirSpaceRow = z.infer<typeof returnAirSpaceRowSchema>;
 /** Termination-height row. */
 export type TerminationHeightRow = z.infer<typeof terminationHeightRowSchema>;
