@@ -6,9 +6,6 @@ import { RULEBOOK_MESSAGES, isRecord, validateRulebookTable, type RulebookIssue 
  * in ./validate, which the rulebook editor runs in the browser on its own.
  */
 
-/** Tables a stored rulebook may lack because they were added after it was saved. */
-const TABLES_ADDED_LATER: ReadonlySet<string> = new Set(["returnAirSpaces"]);
-
 const CONTENT_MESSAGES = {
   notAnObject: "The rulebook must be an object holding the edition and every table.",
   demoNoteNotText: "The demo-data note must be text.",
@@ -30,11 +27,7 @@ export function validateRulebookContent(content: unknown): RulebookIssue[] {
   if (content.demoDataNote !== undefined && typeof content.demoDataNote !== "string") {
     out.push({ table: null, rowIndex: null, column: "demoDataNote", message: CONTENT_MESSAGES.demoNoteNotText, severity: "error" });
   }
-  for (const table of RULEBOOK_TABLE_KEYS) {
-    // Versions stored before a table existed are read with that table empty (see the schema's defaults).
-    const rows = content[table] === undefined && TABLES_ADDED_LATER.has(table) ? [] : content[table];
-    out.push(...validateRulebookTable(table, rows));
-  }
+  for (const table of RULEBOOK_TABLE_KEYS) out.push(...validateRulebookTable(table, content[table]));
   return out;
 }
 

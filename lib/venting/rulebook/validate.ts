@@ -92,8 +92,15 @@ function cellProblem(col: ColumnDefinition, value: unknown, row: number): string
   }
 }
 
+/**
+ * Tables a stored rulebook may lack because they were added after it was saved; such a version
+ * reads them as empty (the schema's `.default([])`).
+ */
+const TABLES_ADDED_LATER: ReadonlySet<RulebookTableKey> = new Set<RulebookTableKey>(["returnAirSpaces"]);
+
 /** Problems of type and shape: a missing table, a row that is not a row, a word where a number belongs. */
 function checkShape(table: RulebookTableKey, rows: unknown): RulebookIssue[] {
+  if (rows === undefined && TABLES_ADDED_LATER.has(table)) return [];
   if (!Array.isArray(rows)) {
     return [{ table, rowIndex: null, column: null, message: RULEBOOK_MESSAGES.missingTable(RULEBOOK_TABLES[table].title), severity: "error" }];
   }
@@ -250,5 +257,5 @@ function validateParsedTable<K extends RulebookTableKey>(table: K, rows: Ruleboo
 export function validateRulebookTable<K extends RulebookTableKey>(table: K, rows: unknown): RulebookIssue[] {
   const shape = checkShape(table, rows);
   if (shape.length > 0) return shape;
-  return validateParsedTable(table, rows as RulebookContent[K]);
+  return validateParsedTable(table, (rows ?? []) as RulebookContent[K]);
 }

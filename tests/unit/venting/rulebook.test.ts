@@ -1,3 +1,4 @@
+import { z } from "zod";
 import { describe, expect, expectTypeOf, test } from "vitest";
 import { STARTER_RULEBOOK, STARTER_RULEBOOK_NAME, DEMO_CAPACITY_CITATION } from "@/db/seeds/data/starter-rulebook";
 import {
@@ -22,11 +23,11 @@ describe("starter rulebook", () => {
     expect(validateRulebookContent(STARTER_RULEBOOK)).toEqual([]);
   });
 
-  test("every code value says it is from memory or a placeholder; every capacity row says demo data", () => {
+  test("every code value says whether it was read, recalled, is trade practice or a placeholder; every capacity row says demo data", () => {
     for (const key of RULEBOOK_TABLE_KEYS) {
       for (const row of STARTER_RULEBOOK[key] as { citation: string }[]) {
         if (key === "capacity") expect(row.citation).toBe(DEMO_CAPACITY_CITATION);
-        else expect(row.citation).toMatch(/from memory — verify against your adopted edition|Placeholder/);
+        else expect(row.citation).toMatch(/from memory — verify against your adopted edition|from memory, section numbers differ|found in (the )?published|common practice|Placeholder/);
       }
     }
     expect(DEMO_CAPACITY_CITATION).toBe("Demo data — invented, not from any code or manufacturer");
@@ -51,7 +52,7 @@ describe("RULEBOOK_TABLES metadata", () => {
       const def = RULEBOOK_TABLES[key];
       const field = rulebookContentSchema.shape[key];
       // A table added later is `.default([])` so older stored versions still parse.
-      const array = "unwrap" in field ? field.unwrap() : field;
+      const array = field instanceof z.ZodDefault ? field.unwrap() : field;
       const shapeKeys = Object.keys(array.element.shape).sort();
       expect(def.columns.map((c) => c.key).sort()).toEqual(shapeKeys);
       expect(def.columns.some((c) => c.key === "citation" && c.required)).toBe(true);
