@@ -1,4 +1,4 @@
-import type { AirOpeningKind, ApplianceKind, ConnectorMaterial, DraftType, Fuel, LouverType, Passage, TerminationOpening, VentCategory, VentMaterial } from "@/lib/venting";
+import type { AirOpeningKind, ApplianceKind, ConnectorMaterial, DraftType, Fuel, LouverType, Passage, ReturnAirSpace, TerminationOpening, VentCategory, VentMaterial } from "@/lib/venting";
 
 /** Labels for the engine's value lists, in the trade's words. */
 export const APPLIANCE_KIND_LABELS = { furnace: "Furnace", boiler: "Boiler", water_heater: "Water heater", other: "Other" } as const satisfies Record<ApplianceKind, string>;
@@ -25,3 +25,16 @@ export const AIR_OPENING_KIND_LABELS = {
   outdoor_single_high: "Outdoor, single high opening",
 } as const satisfies Record<AirOpeningKind, string>;
 export const LOUVER_LABELS = { none: "No louver or grille", wood: "Wood louver", metal: "Metal louver", other: "Other (stated free area)" } as const satisfies Record<LouverType, string>;
+export const RETURN_AIR_SPACE_LABELS = {
+  living_area: "Living area",
+  bedroom: "Bedroom",
+  hallway: "Hallway",
+  appliance_room: "Room with a fuel-burning appliance (e.g. open basement)",
+  bathroom: "Bathroom",
+  toilet_room: "Toilet room",
+  kitchen: "Kitchen",
+  closet: "Closet",
+  garage: "Garage",
+  unconditioned_space: "Unconditioned attic or crawl space",
+  other: "Other",
+} as const satisfies Record<ReturnAirSpace, string>;

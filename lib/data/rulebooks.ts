@@ -37,6 +37,12 @@ export interface RulebookDetail extends RulebookSummary {
   versions: RulebookVersionSummary[];
 }
 
+/** Stored content in today's shape: a version saved before a table existed gets that table empty. */
+function storedContent(json: string): RulebookContent {
+  const content = JSON.parse(json) as RulebookContent;
+  return content.returnAirSpaces ? content : { ...content, returnAirSpaces: [] };
+}
+
 function canonicalJson(content: RulebookContent): string {
   return JSON.stringify(content);
 }
@@ -127,7 +133,7 @@ function toVersion(row: Record<string, unknown>): RulebookVersion {
     createdByName: (row.created_by_name as string | null) ?? null,
     createdAt: row.created_at as string,
     contentSha256: row.content_sha256 as string,
-    content: JSON.parse(row.content_json as string) as RulebookContent,
+    content: storedContent(row.content_json as string),
   };
 }
 
@@ -204,7 +210,7 @@ export async function getRulebookVersionRef(args: { companyId: number; versionId
 export async function getRulebookVersionContent(args: { companyId: number; versionId: number }): Promise<RulebookContent> {
   const row = await versionContent(getDb(), { companyId: args.companyId, versionId: args.versionId });
   if (!row) throw new AppError("not_found", "No such rulebook version in your company.");
-  return JSON.parse(row.content_json as string) as RulebookContent;
+  return storedContent(row.content_json as string);
 }
 
 /** One version by its own id, as an inspection or a check pins it. */

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { airSpaceSchema, applianceSchema, readingsSchema, removedApplianceSchema, ventRunSchema } from "@/lib/venting";
+import { airSpaceSchema, applianceSchema, readingsSchema, removedApplianceSchema, returnAirSchema, ventRunSchema } from "@/lib/venting";
 
 /**
  * What an inspection holds while it is edited: the engine's inputs, the installer's site-check
@@ -27,6 +27,7 @@ export const inspectionDataSchema = z.object({
   airSpace: airSpaceSchema.nullable().default(null),
   readings: z.array(readingsSchema).max(20).default([]),
   removedAppliances: z.array(removedApplianceSchema).max(10).default([]),
+  returnAir: returnAirSchema.nullable().default(null),
   siteChecks: z.record(key, siteCheckAnswerSchema).default({}),
   justifications: z.record(key, justificationSchema).default({}),
   notes: z.string().max(5000, "Keep the notes under 5,000 characters.").default(""),
@@ -47,6 +48,7 @@ export function emptyInspectionData(appliances: InspectionData["appliances"] = [
     airSpace: { id: "air-space", rooms: [], openings: [] },
     readings: appliances.map((a) => ({ applianceId: a.id })),
     removedAppliances: [],
+    returnAir: { id: "return-air", openings: [] },
     siteChecks: {},
     justifications: {},
     notes: "",

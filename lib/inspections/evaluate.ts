@@ -1,4 +1,4 @@
-import { evaluateInspection, summarizeFindings, type AirSpaceSizing, type Finding, type FindingSummary, type PreparedRulebook, type VentRunSizing } from "@/lib/venting";
+import { evaluateInspection, summarizeFindings, type AirSpaceSizing, type Finding, type FindingSummary, type PreparedRulebook, type ReturnAirSizing, type VentRunSizing } from "@/lib/venting";
 import { applicableItems, siteCheckFindings, type SiteCheckItemDefinition } from "@/lib/site-checks";
 import type { InspectionData } from "./data";
 
@@ -11,7 +11,7 @@ export type InspectionFinding = Omit<Finding, "code" | "target"> & {
 export interface InspectionEvaluation {
   findings: InspectionFinding[];
   summary: FindingSummary;
-  sizing: { ventRun: VentRunSizing | null; airSpace: AirSpaceSizing | null };
+  sizing: { ventRun: VentRunSizing | null; airSpace: AirSpaceSizing | null; returnAir?: ReturnAirSizing | null };
 }
 
 /** The key a justification is stored under: one finding of one input. */
@@ -26,7 +26,7 @@ export function findingKey(finding: Pick<InspectionFinding, "code" | "target">):
  */
 export function evaluateInspectionData(data: InspectionData, rulebook: PreparedRulebook, siteCheckItems: readonly SiteCheckItemDefinition[]): InspectionEvaluation {
   const findings: InspectionFinding[] = [];
-  let sizing: InspectionEvaluation["sizing"] = { ventRun: null, airSpace: null };
+  let sizing: InspectionEvaluation["sizing"] = { ventRun: null, airSpace: null, returnAir: null };
   if (data.appliances.length === 0) {
     findings.push({
       code: "inspection.appliances",
@@ -46,6 +46,7 @@ export function evaluateInspectionData(data: InspectionData, rulebook: PreparedR
         airSpace: data.airSpace,
         readings: data.readings,
         removedAppliances: data.removedAppliances.length ? data.removedAppliances : null,
+        returnAir: data.returnAir,
       },
       rulebook,
     );

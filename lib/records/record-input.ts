@@ -1,4 +1,4 @@
-import type { Appliance, FindingSummary, AirSpaceSizing, VentRunSizing } from "@/lib/venting";
+import type { Appliance, FindingSummary, AirSpaceSizing, ReturnAirSizing, VentRunSizing } from "@/lib/venting";
 import type { InspectionData } from "@/lib/inspections/data";
 import type { InspectionFinding } from "@/lib/inspections/evaluate";
 
@@ -25,7 +25,7 @@ export interface RecordInput {
   data: InspectionData;
   findings: InspectionFinding[];
   summary: FindingSummary;
-  sizing: { ventRun: VentRunSizing | null; airSpace: AirSpaceSizing | null };
+  sizing: { ventRun: VentRunSizing | null; airSpace: AirSpaceSizing | null; returnAir?: ReturnAirSizing | null };
   rulebook: { name: string; versionNumber: number; edition: string; demoDataNote: string | null; contentSha256: string };
   siteChecks: { key: string; label: string; answer: "yes" | "no" | "na" | null; note: string }[];
   justifications: { title: string; code: string; text: string; reference: string }[];

@@ -55,3 +55,19 @@ export type AirOpeningKind = (typeof AIR_OPENING_KINDS)[number];
 export type LouverType = (typeof LOUVER_TYPES)[number];
 export type RatedLouverType = (typeof RATED_LOUVER_TYPES)[number];
 export type OpeningPosition = (typeof OPENING_POSITIONS)[number];
+
+/** Where a return-air opening draws its air from. */
+export const RETURN_AIR_SPACES = [
+  "living_area",
+  "bedroom",
+  "hallway",
+  "appliance_room",
+  "bathroom",
+  "toilet_room",
+  "kitchen",
+  "closet",
+  "garage",
+  "unconditioned_space",
+  "other",
+] as const;
+export type ReturnAirSpace = (typeof RETURN_AIR_SPACES)[number];

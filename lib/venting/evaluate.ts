@@ -17,6 +17,11 @@ import { checkDraft } from "./checks/readings-draft";
 import { checkInputRate } from "./checks/readings-input-rate";
 import type { ReadingsContext } from "./checks/readings-shared";
 import { checkSpillage } from "./checks/readings-spillage";
+import { checkReturnAirArea } from "./checks/return-air-area";
+import { returnAirContext, type AirflowSource, type OutputSource } from "./checks/return-air-context";
+import { checkReturnAirDraftHood } from "./checks/return-air-draft-hood";
+import { checkReturnAirLocation } from "./checks/return-air-location";
+import { checkReturnAirVelocity } from "./checks/return-air-velocity";
 import { checkTemperatureRise } from "./checks/readings-temperature-rise";
 import { applianceCategory, groupConnectors, type VentRunContext } from "./checks/shared";
 import { checkSupportsSpacing } from "./checks/supports-spacing";
@@ -29,7 +34,7 @@ import { checkVentCategory } from "./checks/vent-category";
 import { checkVentMinHeight } from "./checks/vent-min-height";
 import type { ConnectorMaterial } from "./enums";
 import { FINDING_STATUSES, type Finding, type FindingStatus } from "./findings";
-import type { AirSpace, Appliance, CheckInput, Readings, VentRun } from "./inputs";
+import type { AirSpace, Appliance, CheckInput, Readings, ReturnAir, VentRun } from "./inputs";
 import type { PreparedRulebook } from "./rulebook/prepare";
 import type { VolumeRequirement } from "./sizing/air";
 import type { CapacitySizing } from "./sizing/assess-capacity";
@@ -75,6 +80,43 @@ export interface AirSpaceResult {
   readonly sizing: AirSpaceSizing;
 }
 
+/** Sizing answer for one return opening. */
+export interface ReturnOpeningSizing {
+  readonly openingId: string;
+  /** Free area, in² (null when its size or share is missing). */
+  readonly freeAreaSqIn: number | null;
+  /** Its share of the airflow, cfm (split by free area). */
+  readonly airflowCfm: number | null;
+  readonly faceVelocityFpm: number | null;
+  /** The face-velocity limit it was judged against, fpm (null when not known). */
+  readonly velocityLimitFpm: number | null;
+}
+
+/** Sizing answers for the return-air side of a furnace. */
+export interface ReturnAirSizing {
+  /** The furnace served, when it can be told. */
+  readonly applianceId: string | null;
+  readonly outputBtuh: number | null;
+  /** `entered` from the rating plate, or `input_efficiency` (rated input × efficiency). */
+  readonly outputSource: OutputSource | null;
+  readonly airflowCfm: number | null;
+  /** `nameplate`, `cooling_tons` (tons × cfm per ton) or `temperature_rise` (output ÷ (factor × ΔT)). */
+  readonly airflowSource: AirflowSource | null;
+  /** Temperature rise used for the airflow, °F (only for `temperature_rise`). */
+  readonly temperatureRiseF: number | null;
+  /** Total free area the return needs, in². */
+  readonly requiredFreeAreaSqIn: number | null;
+  /** Total free area the openings give, in² (null when one is not known). */
+  readonly totalFreeAreaSqIn: number | null;
+  readonly openings: readonly ReturnOpeningSizing[];
+}
+
+/** Result of {@link evaluateReturnAir}. */
+export interface ReturnAirResult {
+  readonly findings: Finding[];
+  readonly sizing: ReturnAirSizing;
+}
+
 /** Counts per status and the worst one. */
 export interface FindingSummary {
   readonly total: number;
@@ -86,7 +128,7 @@ export interface FindingSummary {
 /** Result of {@link evaluateInspection}. */
 export interface InspectionResult {
   readonly findings: Finding[];
-  readonly sizing: { readonly ventRun: VentRunSizing | null; readonly airSpace: AirSpaceSizing | null };
+  readonly sizing: { readonly ventRun: VentRunSizing | null; readonly airSpace: AirSpaceSizing | null; readonly returnAir: ReturnAirSizing | null };
   readonly summary: FindingSummary;
   /** The rulebook edition the checks ran against. */
   readonly edition: string;
@@ -242,6 +284,53 @@ export function evaluateOrphanedAppliance(
   return checkOrphanedAppliance(current, remaining, appliances, rulebook, stillCommon);
 }
 
+/**
+ * Checks the return-air side of a furnace: the openings' total free area against the furnace's
+ * output, each grille's face velocity from the airflow, where the return draws from, and its
+ * distance from draft hoods in the same space.
+ * @param returnAir the return as entered (parsed with `returnAirSchema`)
+ * @param appliances all appliances; the return serves `returnAir.applianceId` or the only furnace
+ * @param readings the readings entries; the furnace's supply and return temperatures give the rise when none is entered
+ * @param rulebook a rulebook from `prepareRulebook`
+ */
+export function evaluateReturnAir(returnAir: ReturnAir, appliances: readonly Appliance[], readings: readonly Readings[], rulebook: PreparedRulebook): ReturnAirResult {
+  const findings: Finding[] = [];
+  const ctx = returnAirContext(returnAir, appliances, readings, rulebook);
+  const requiredFreeAreaSqIn = checkReturnAirArea(ctx, findings);
+  const velocities = checkReturnAirVelocity(ctx, findings);
+  checkReturnAirLocation(ctx, findings);
+  checkReturnAirDraftHood(ctx, findings);
+  const byId = new Map(velocities.map((v) => [v.openingId, v]));
+  return {
+    findings,
+    sizing: {
+      applianceId: ctx.appliance?.id ?? null,
+      outputBtuh: ctx.output.ok ? ctx.output.outputBtuh : null,
+      outputSource: ctx.output.ok ? ctx.output.source : null,
+      airflowCfm: ctx.airflow.ok ? ctx.airflow.cfm : null,
+      airflowSource: ctx.airflow.ok ? ctx.airflow.source : null,
+      temperatureRiseF: ctx.airflow.ok ? ctx.airflow.riseF : null,
+      requiredFreeAreaSqIn,
+      totalFreeAreaSqIn: ctx.totalFreeAreaSqIn,
+      openings: ctx.openings.map((o) => {
+        const v = byId.get(o.opening.id);
+        return {
+          openingId: o.opening.id,
+          freeAreaSqIn: o.freeAreaSqIn,
+          airflowCfm: v ? v.airflowCfm : null,
+          faceVelocityFpm: v ? v.faceVelocityFpm : null,
+          velocityLimitFpm: v ? v.limitFpm : null,
+        };
+      }),
+    },
+  };
+}
+
+/** Whether a return-air entry concerns this inspection: it names a furnace, or a furnace is among the appliances. */
+function returnAirApplies(returnAir: ReturnAir, appliances: readonly Appliance[]): boolean {
+  return Boolean(returnAir.applianceId) || appliances.some((a) => a.kind === "furnace");
+}
+
 /** Counts findings per status and finds the worst. */
 export function summarizeFindings(findings: readonly Finding[]): FindingSummary {
   const counts: Record<FindingStatus, number> = { pass: 0, warn: 0, "needs-info": 0, fail: 0 };
@@ -252,8 +341,9 @@ export function summarizeFindings(findings: readonly Finding[]): FindingSummary 
 }
 
 /**
- * Runs every check of a check request: the vent run, the air space, each appliance's readings
- * and, when appliances were removed from a common vent, the appliance left on it.
+ * Runs every check of a check request: the vent run, the air space, each appliance's readings,
+ * when appliances were removed from a common vent, the appliance left on it, and the return air
+ * when there is a furnace.
  * @param input a request parsed with `checkInputSchema`
  * @param rulebook a rulebook from `prepareRulebook`
  */
@@ -299,5 +389,11 @@ export function evaluateInspection(input: CheckInput, rulebook: PreparedRulebook
     const a = appliances.find((x) => x.id === r.applianceId);
     if (a) findings.push(...evaluateReadings(r, a, rulebook, i));
   }
-  return { findings, sizing: { ventRun: ventSizing, airSpace: airSizing }, summary: summarizeFindings(findings), edition: rulebook.content.edition };
+  let returnSizing: ReturnAirSizing | null = null;
+  if (input.returnAir && returnAirApplies(input.returnAir, appliances)) {
+    const r = evaluateReturnAir(input.returnAir, appliances, readings, rulebook);
+    findings.push(...r.findings);
+    returnSizing = r.sizing;
+  }
+  return { findings, sizing: { ventRun: ventSizing, airSpace: airSizing, returnAir: returnSizing }, summary: summarizeFindings(findings), edition: rulebook.content.edition };
 }

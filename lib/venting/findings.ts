@@ -26,7 +26,7 @@ export interface Requirement extends Quantity {
 }
 
 /** The input sections a finding can point at. */
-export type TargetSection = "appliances" | "ventRun" | "airSpace" | "readings" | "removedAppliances";
+export type TargetSection = "appliances" | "ventRun" | "airSpace" | "readings" | "removedAppliances" | "returnAir";
 
 /** The input field a finding concerns, for the UI to jump to. */
 export interface FindingTarget {
@@ -69,6 +69,10 @@ export const FINDING_CODES = {
   readingsTemperatureRise: "readings.temperature_rise",
   readingsInputRate: "readings.input_rate",
   commonVentOrphaned: "common_vent.orphaned",
+  returnAirArea: "return_air.area",
+  returnAirVelocity: "return_air.velocity",
+  returnAirLocation: "return_air.location",
+  returnAirDraftHood: "return_air.draft_hood_distance",
 } as const;
 
 /** A finding code. */
@@ -215,6 +219,22 @@ export const FINDING_CATALOGUE = {
     title: "Appliance left on a common vent",
     description: "An appliance left alone on a vent that was common is re-checked against the single-appliance capacity table, minimum and maximum.",
   },
+  "return_air.area": {
+    title: "Return-air opening area",
+    description: "The return openings' total free area is at least the rulebook's area per 1,000 Btu/h of the furnace's output.",
+  },
+  "return_air.velocity": {
+    title: "Return grille face velocity",
+    description: "Airflow through each return grille's free area stays at or below the rulebook's quiet-return target, or the filter-grille maximum for a filter grille (common practice: a warning, not a failure).",
+  },
+  "return_air.location": {
+    title: "Where return air is drawn from",
+    description: "No return opening draws from a space the rulebook prohibits, and a space holding a fuel-burning appliance is not the only source of return air, unless the rulebook's exception applies.",
+  },
+  "return_air.draft_hood_distance": {
+    title: "Return opening distance from a draft hood",
+    description: "A return opening is at least the rulebook's distance from a draft hood or open combustion chamber in the same space.",
+  },
 } as const satisfies Record<FindingCode, FindingCatalogueEntry>;
 
 const n = fmt;
@@ -224,6 +244,22 @@ const btuh = (v: number) => `${n(v, 0)} Btu/h`;
 const HUMAN: Record<string, string> = { single_wall: "single-wall", type_b: "Type B", masonry_lined: "lined masonry" };
 const human = (s: string) => HUMAN[s] ?? s.replace(/_/g, " ");
 const plural = (count: number, one: string, many: string) => `${n(count, 0)} ${count === 1 ? one : many}`;
+
+/** A return-air space with its article, for messages. */
+const RETURN_SPACE_PHRASES: Record<string, string> = {
+  living_area: "a living area",
+  bedroom: "a bedroom",
+  hallway: "a hallway",
+  appliance_room: "an appliance room",
+  bathroom: "a bathroom",
+  toilet_room: "a toilet room",
+  kitchen: "a kitchen",
+  closet: "a closet",
+  garage: "a garage",
+  unconditioned_space: "an unconditioned space",
+  other: "another space",
+};
+const aSpace = (s: string) => RETURN_SPACE_PHRASES[s] ?? `a ${human(s)}`;
 
 /** Message templates, one group per finding code. */
 export const MESSAGES = {
@@ -518,5 +554,50 @@ export const MESSAGES = {
     noneLeft: () => "No appliance is left on the vent; cap or remove it.",
     several: () => "More than one appliance is still on the vent; it is still common and is checked as such.",
     stillCommon: (inner: string) => `The appliances left on the vent still share it, re-checked against the multiple-appliance tables: ${inner}`,
+  },
+  returnAir: {
+    pass: (freeSqIn: number, requiredSqIn: number, outputBtuh: number, perKbtuh: number) =>
+      `The return openings give ${n(freeSqIn, 1)} in² of free area; ${btuh(outputBtuh)} of output needs at least ${n(requiredSqIn, 1)} in² (${n(perKbtuh)} in² per 1,000 Btu/h).`,
+    fail: (freeSqIn: number, requiredSqIn: number, outputBtuh: number, perKbtuh: number) =>
+      `The return openings give only ${n(freeSqIn, 1)} in² of free area; ${btuh(outputBtuh)} of output needs at least ${n(requiredSqIn, 1)} in² (${n(perKbtuh)} in² per 1,000 Btu/h). Enlarge the return or add an opening of at least ${n(requiredSqIn - freeSqIn, 1)} in² free area.`,
+    noOpenings: () => "Add the return openings (grilles or ducts into the return) that serve this furnace.",
+    needsOpening: (label: string) => `Enter the width and height (or diameter) and the free-area share of ${label}, or its stated free area.`,
+    needsOutput: () => "Enter the furnace's output from the rating plate, or its efficiency so the output can be worked out from the rated input.",
+    needsInput: (label: string) => `Enter the rated input of ${label}; with the efficiency it gives the output.`,
+    needsFurnace: () => "Choose the furnace this return serves.",
+    unknownFurnace: (id: string) => `The furnace "${id}" chosen for the return air is not among the appliances; choose it again.`,
+    velocityPass: (label: string, fpm: number, maxFpm: number, cfm: number, what: string) =>
+      `${label}: ${n(fpm, 0)} fpm through its free area (${n(cfm, 0)} cfm); at most ${n(maxFpm, 0)} fpm ${what}.`,
+    velocityHigh: (label: string, fpm: number, maxFpm: number, cfm: number, what: string) =>
+      `${label}: ${n(fpm, 0)} fpm through its free area (${n(cfm, 0)} cfm), above the ${n(maxFpm, 0)} fpm ${what}. Expect noise and a higher pressure drop: use a larger grille or add a return.`,
+    needsFilterAnswer: (label: string, fpm: number, filterMaxFpm: number) =>
+      `${label}: ${n(fpm, 0)} fpm through its free area, above the ${n(filterMaxFpm, 0)} fpm filter-grille maximum. Say whether this grille holds a filter.`,
+    quietTarget: "quiet-return target",
+    filterMax: "filter-grille maximum",
+    needsAirflow: () => "Enter the blower airflow (rating plate), the cooling size in tons, or the temperature rise (or the supply and return temperatures in the readings) to work out the airflow.",
+    badRise: (riseF: number) => `A temperature rise of ${n(riseF, 1)} °F cannot give the airflow; check the supply and return temperatures, or enter the airflow.`,
+    needsAllOpenings: () => "Enter the free area of every return opening: the airflow is shared between them by free area.",
+    needsSpace: (label: string) => `Say which kind of space ${label} draws its air from.`,
+    otherSpace: (label: string) => `${label} draws from a space entered as "other", which the rulebook's list cannot judge. Choose the kind of space, or check it against your code.`,
+    spaceAllowed: (label: string, space: string) => `${label} draws from ${aSpace(space)}, which the rulebook does not prohibit.`,
+    spaceProhibited: (label: string, space: string, note: string) =>
+      `${label} draws return air from ${aSpace(space)}, which the rulebook prohibits. Move the return to a permitted space or close it off.${note ? ` Exception: ${note} If it applies, say so and keep the evidence.` : ""}`,
+    exceptionConfirmed: (label: string, space: string, note: string) =>
+      `${label} draws from ${aSpace(space)}, normally prohibited; you confirmed the exception applies: ${note} Keep the evidence for the inspector.`,
+    soleSourceNeedsInfo: (label: string, space: string) =>
+      `${label} draws from ${aSpace(space)} that holds a fuel-burning appliance: say whether it is the system's only return source.`,
+    soleSourceFail: (label: string, space: string, note: string) =>
+      `${label} makes ${aSpace(space)} holding a fuel-burning appliance the only source of return air, which can depressurise the room and pull flue gases out of the draft hood. Add a return from another space.${note ? ` Exception: ${note} If it applies, say so.` : ""}`,
+    soleSourceOk: (label: string, space: string) =>
+      `${label} draws from ${aSpace(space)} holding a fuel-burning appliance, but it is not the only return source.`,
+    distancePass: (label: string, distanceFt: number, minFt: number) =>
+      `${label} is ${ft(distanceFt)} from the nearest draft hood or open combustion chamber in the same space; at least ${ft(minFt)} is needed.`,
+    distanceFail: (label: string, distanceFt: number, minFt: number) =>
+      `${label} is only ${ft(distanceFt)} from a draft hood or open combustion chamber in the same space; it must be at least ${ft(minFt)} away, or it can pull flue gases into the house. Move the return opening.`,
+    distanceNeedsInfo: (label: string) => `Measure the distance from ${label} to the nearest draft hood or open combustion chamber in the same space.`,
+    fuelApplianceNeedsInfo: (label: string) =>
+      `Say whether the space ${label} draws from holds a fuel-burning appliance with a draft hood or open combustion chamber.`,
+    noFuelAppliance: (label: string) => `No fuel-burning appliance is in the space ${label} draws from, so the draft-hood distance does not apply.`,
+    furnaceCitation: "Furnace rating plate or instructions (as entered)",
   },
 } as const;

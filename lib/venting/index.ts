@@ -24,6 +24,8 @@ export {
   readingsSchema,
   removedApplianceSchema,
   checkInputSchema,
+  returnAirSchema,
+  returnAirOpeningSchema,
 } from "./inputs";
 export type {
   Appliance,
@@ -39,6 +41,8 @@ export type {
   RemovedAppliance,
   CheckInput,
   CheckInputRaw,
+  ReturnAir,
+  ReturnAirOpening,
 } from "./inputs";
 export {
   FINDING_CODES,
@@ -77,6 +81,7 @@ export {
   commonVentCapacityRowSchema,
   louverShareRowSchema,
   flueCoLimitRowSchema,
+  returnAirSpaceRowSchema,
 } from "./rulebook/tables";
 export type {
   RulebookContent,
@@ -90,6 +95,7 @@ export type {
   CommonVentCapacityRow,
   ParameterRow,
   TerminationHeightRow,
+  ReturnAirSpaceRow,
 } from "./rulebook/tables";
 export { validateRulebookTable, RULEBOOK_MESSAGES } from "./rulebook/validate";
 export { validateRulebookContent } from "./rulebook/validate-content";
@@ -103,6 +109,7 @@ export {
   evaluateOrphanedAppliance,
   evaluateInspection,
   summarizeFindings,
+  evaluateReturnAir,
 } from "./evaluate";
 export type {
   VentRunResult,
@@ -113,6 +120,9 @@ export type {
   CombustionAirOptions,
   InspectionResult,
   FindingSummary,
+  ReturnAirResult,
+  ReturnAirSizing,
+  ReturnOpeningSizing,
 } from "./evaluate";
 export { requiredRiseIn, supportsNeeded } from "./sizing/rise";
 export {
@@ -158,3 +168,14 @@ export { ventReductionConsidered } from "./checks/connector-diameter";
 export { openingArea, roomVolume } from "./checks/air-context";
 export type { OpeningSizing } from "./checks/air-openings";
 export { fmt as formatNumber } from "./format";
+export {
+  furnaceOutputBtuh,
+  airflowFromTonsCfm,
+  airflowFromRiseCfm,
+  requiredReturnAreaSqIn,
+  openingAirflowCfm,
+  faceVelocityFpm,
+  returnGrossAreaSqIn,
+  SQIN_PER_SQFT,
+} from "./sizing/return-air";
+export type { AirflowSource, OutputSource } from "./checks/return-air-context";

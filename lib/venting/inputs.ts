@@ -9,10 +9,12 @@ import {
   OPENING_POSITIONS,
   ORIENTATIONS,
   PASSAGES,
+  RETURN_AIR_SPACES,
   TERMINATION_OPENINGS,
   VENT_CATEGORIES,
   VENT_MATERIALS,
 } from "./enums";
+import { fmt } from "./format";
 
 /**
  * Inputs of the engine. Every measured or observed field is optional and nullable so that a
@@ -197,6 +199,61 @@ export const removedApplianceSchema = z.object({
   inputBtuh: measured,
 });
 
+/**
+ * A measured return-air quantity with a physically sensible range. The message names the field
+ * and the range, so the form and the API can show it as it stands.
+ */
+function returnAirQuantity(field: string, unit: string, min: number, max: number, minExclusive = false) {
+  const range = `between ${fmt(min)} and ${fmt(max)} ${unit}`;
+  const message = `${field} must be ${minExclusive ? "more than" : "at least"} ${fmt(min)} and at most ${fmt(max)} ${unit}.`;
+  const base = z.number({ error: `${field} must be a number ${range}.` });
+  return (minExclusive ? base.gt(min, message) : base.min(min, message)).max(max, message).nullish();
+}
+
+/** One return-air opening or grille serving the furnace. */
+export const returnAirOpeningSchema = z.object({
+  id,
+  label: z.string().max(200).default(""),
+  widthIn: returnAirQuantity("Return opening width", "in", 0, 240, true),
+  heightIn: returnAirQuantity("Return opening height", "in", 0, 240, true),
+  /** Round duct or grille instead of width × height, in. */
+  diameterIn: returnAirQuantity("Return opening diameter", "in", 0, 60, true),
+  /** Free area as a share of the gross opening, from the grille maker (1 for an open duct). */
+  freeAreaShare: returnAirQuantity("Grille free-area share", "(a share: 0.75 is 75 %)", 0, 1, true),
+  /** Free area stated outright, in²; takes the place of dimensions × share. */
+  freeAreaSqIn: returnAirQuantity("Stated free area", "in²", 0, 20000, true),
+  /** The grille holds the system's filter (a filter grille). */
+  filterGrille: z.boolean().nullish(),
+  /** The kind of space the opening draws from. */
+  space: z.enum(RETURN_AIR_SPACES).nullish(),
+  /** A fuel-burning appliance with a draft hood or open combustion chamber is in that space. */
+  fuelApplianceInSpace: z.boolean().nullish(),
+  /** Distance to the nearest such draft hood or open combustion chamber in the same space, ft. */
+  distanceToDraftHoodFt: returnAirQuantity("Distance to the draft hood", "ft", 0, 500),
+  /** That space is the system's only source of return air. */
+  soleReturnSource: z.boolean().nullish(),
+  /** The installer confirms the exception the rulebook notes for this space applies. */
+  exceptionApplies: z.boolean().nullish(),
+});
+
+/** The return-air side of a furnace: its output, its airflow and the openings it draws through. */
+export const returnAirSchema = z.object({
+  id: id.default("return-air"),
+  /** The furnace the return serves; defaults to the only furnace of the inspection. */
+  applianceId: id.nullish(),
+  /** Heating output from the rating plate, Btu/h; otherwise input × efficiency. */
+  outputBtuh: returnAirQuantity("Furnace output", "Btu/h", 0, 1000000, true),
+  /** Efficiency used to turn the rated input into output, %. */
+  efficiencyPct: returnAirQuantity("Furnace efficiency", "%", 0, 100, true),
+  /** Blower airflow from the rating plate or the maker's table, cfm. */
+  airflowCfm: returnAirQuantity("Airflow", "cfm", 0, 20000, true),
+  /** Nominal cooling capacity served by the same blower, tons. */
+  coolingTons: returnAirQuantity("Cooling capacity", "tons", 0, 50, true),
+  /** Temperature rise across the furnace, °F; otherwise supply − return from the readings. */
+  temperatureRiseF: returnAirQuantity("Temperature rise", "°F", 0, 200, true),
+  openings: z.array(returnAirOpeningSchema).max(20, "At most 20 return openings.").default([]),
+});
+
 /** A complete check request: the appliances with an optional vent run, air space and readings. */
 export const checkInputSchema = z.object({
   appliances: z.array(applianceSchema).min(1),
@@ -206,6 +263,8 @@ export const checkInputSchema = z.object({
   readings: z.array(readingsSchema).nullish(),
   /** Appliances removed from a vent that was common; the ones left are re-checked alone. */
   removedAppliances: z.array(removedApplianceSchema).nullish(),
+  /** The return-air side of a furnace replacement. */
+  returnAir: returnAirSchema.nullish(),
 });
 
 export type Appliance = z.infer<typeof applianceSchema>;
@@ -219,6 +278,8 @@ export type AirOpening = z.infer<typeof airOpeningSchema>;
 export type AirSpace = z.infer<typeof airSpaceSchema>;
 export type Readings = z.infer<typeof readingsSchema>;
 export type RemovedAppliance = z.infer<typeof removedApplianceSchema>;
+export type ReturnAirOpening = z.infer<typeof returnAirOpeningSchema>;
+export type ReturnAir = z.infer<typeof returnAirSchema>;
 export type CheckInput = z.infer<typeof checkInputSchema>;
 /** A check request before defaults are applied (what a client sends). */
 export type CheckInputRaw = z.input<typeof checkInputSchema>;

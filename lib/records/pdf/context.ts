@@ -20,6 +20,7 @@ export const AREAS = [
   { key: "connector", title: "Vent connector" },
   { key: "vent", title: "Vent and termination" },
   { key: "air", title: "Combustion air" },
+  { key: "returnAir", title: "Return air" },
   { key: "readings", title: "Readings" },
   { key: "siteChecks", title: "Site checks" },
 ] as const;
@@ -34,6 +35,8 @@ export function areaOf(f: InspectionFinding): AreaKey {
       return "vent";
     case "airSpace":
       return "air";
+    case "returnAir":
+      return "returnAir";
     case "readings":
       return "readings";
     case "siteChecks":
@@ -75,6 +78,9 @@ export function targetLabel(input: RecordInput, f: InspectionFinding): string | 
   const room = indexAfter(p, "airSpace.rooms.");
   if (room !== null) return data.airSpace?.rooms[room]?.label || `Room ${room + 1}`;
   if (p.startsWith("airSpace")) return "Air space";
+  const returnOpening = indexAfter(p, "returnAir.openings.");
+  if (returnOpening !== null) return data.returnAir?.openings[returnOpening]?.label.trim() || `Return opening ${returnOpening + 1}`;
+  if (p.startsWith("returnAir")) return "Return air";
   const reading = indexAfter(p, "readings.");
   if (reading !== null) return applianceLabel(input, data.readings[reading]?.applianceId);
   const appliance = indexAfter(p, "appliances.");

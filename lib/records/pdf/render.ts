@@ -11,6 +11,7 @@ import { drawCover, RECORD_TITLE } from "./sections/cover";
 import { drawFindings } from "./sections/findings";
 import { drawAppliances, drawSegments, drawVentRunDrawing } from "./sections/installation";
 import { drawNotes, drawReadings, drawSiteChecks } from "./sections/readings";
+import { drawReturnAir } from "./sections/return-air";
 
 /** Every string in the input, to find characters the primary typeface lacks before drawing. */
 function strings(value: unknown, out: string[] = []): string[] {
@@ -26,7 +27,7 @@ function strings(value: unknown, out: string[] = []): string[] {
  * Renders the signed record of an approved inspection as a PDF: page 1 with the company, the
  * job, the verification code and QR code, a summary and the caution box; then appliances,
  * findings by area, the vent-run drawing (vector), connector segments, combustion air,
- * readings, site checks, justifications, photos, the rulebook and the sign-off. Every page
+ * return air, readings, site checks, justifications, photos, the rulebook and the sign-off. Every page
  * carries the record number, revision, verification code, page n of N and a short caution.
  *
  * Deterministic: the same input gives the same bytes (dates come from `input.generatedAt`).
@@ -62,6 +63,7 @@ export async function renderRecordPdf(input: RecordInput): Promise<Uint8Array> {
   drawVentRunDrawing(ctx, ++n);
   drawSegments(ctx, ++n);
   drawCombustionAir(ctx, ++n);
+  drawReturnAir(ctx, ++n);
   drawReadings(ctx, ++n);
   drawSiteChecks(ctx, ++n);
   drawNotes(ctx);

@@ -220,6 +220,41 @@ export const PARAMETER_DEFINITIONS = {
     min: 0,
     max: 100,
   },
+  return_air_area_sqin_per_1000_btuh_output: {
+    unit: "in² per 1,000 Btu/h",
+    description: "Smallest total free area of the return-air openings to a furnace per 1,000 Btu/h of its output.",
+    min: 0,
+  },
+  return_air_cfm_per_ton: {
+    unit: "cfm/ton",
+    description: "Nominal blower airflow per ton of cooling, used when the airflow is known only from the cooling size.",
+    min: 0,
+  },
+  return_air_sensible_heat_btuh_per_cfm_f: {
+    unit: "Btu/h per cfm·°F",
+    description: "Sensible-heat factor of standard air: airflow = output ÷ (factor × temperature rise).",
+    min: 0,
+  },
+  return_air_grille_velocity_max_fpm: {
+    unit: "fpm",
+    description: "Face velocity through a return grille's free area above which the return is likely to be noisy.",
+    min: 0,
+  },
+  return_air_filter_grille_velocity_max_fpm: {
+    unit: "fpm",
+    description: "Highest face velocity through a filter grille's free area.",
+    min: 0,
+  },
+  return_air_draft_hood_min_distance_ft: {
+    unit: "ft",
+    description: "Smallest distance from a return opening to a draft hood or open combustion chamber in the same space.",
+    min: 0,
+  },
+  return_air_sole_source_fuel_space_prohibited: {
+    unit: "flag",
+    description: "1 when return air may not be taken solely from a space that holds a fuel-burning appliance.",
+    flag: true,
+  },
 } as const satisfies Record<string, ParameterDefinition>;
 
 /** A parameter key. */

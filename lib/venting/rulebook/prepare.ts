@@ -1,4 +1,4 @@
-import type { ConnectorMaterial, RatedLouverType, ApplianceKind } from "../enums";
+import type { ConnectorMaterial, RatedLouverType, ApplianceKind, ReturnAirSpace } from "../enums";
 import type { ParameterKey } from "./parameters";
 import {
   rulebookContentSchema,
@@ -77,6 +77,8 @@ export interface PreparedRulebook {
   readonly commonVentCapacity: ReadonlyMap<string, readonly CommonVentGrid[]>;
   readonly louverShares: ReadonlyMap<RatedLouverType, Cited<number>>;
   readonly flueCoLimits: ReadonlyMap<ApplianceKind, Cited<number>>;
+  /** Where return air may be drawn from, by space. */
+  readonly returnAirSpaces: ReadonlyMap<ReturnAirSpace, IndexedRow<"returnAirSpaces">>;
 }
 
 /** Thrown by {@link prepareRulebook} when the content does not have the rulebook's structure. */
@@ -182,6 +184,8 @@ export function prepareRulebook(content: unknown): PreparedRulebook {
   c.louverShares.forEach((r, i) => louverShares.set(r.louver, cited("louverShares", i, r.freeAreaShare, r.citation)));
   const flueCoLimits = new Map<ApplianceKind, Cited<number>>();
   c.flueCoLimits.forEach((r, i) => flueCoLimits.set(r.applianceKind, cited("flueCoLimits", i, r.maxAirFreeCoPpm, r.citation)));
+  const returnAirSpaces = new Map<ReturnAirSpace, IndexedRow<"returnAirSpaces">>();
+  c.returnAirSpaces.forEach((row, rowIndex) => returnAirSpaces.set(row.space, { row, ref: { table: "returnAirSpaces", rowIndex } }));
 
   const prepared: PreparedRulebook = {
     content: c,
@@ -199,6 +203,7 @@ export function prepareRulebook(content: unknown): PreparedRulebook {
     commonVentCapacity: buildCommonVent(c.commonVentCapacity),
     louverShares,
     flueCoLimits,
+    returnAirSpaces,
   };
   if (typeof content === "object" && content !== null) cache.set(content, prepared);
   return prepared;

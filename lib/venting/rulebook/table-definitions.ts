@@ -5,6 +5,7 @@ import {
   ORIENTATIONS,
   RATED_LOUVER_TYPES,
   RESTRICTED_PASSAGES,
+  RETURN_AIR_SPACES,
   TERMINATION_OPENINGS,
   VENT_MATERIALS,
   VENT_SYSTEMS,
@@ -219,6 +220,19 @@ export const RULEBOOK_TABLES = {
       citationColumn,
     ],
     uniqueBy: ["applianceKind"],
+  },
+  returnAirSpaces: {
+    title: "Return-air spaces",
+    description:
+      "Spaces a furnace's return air may not be drawn from, with the exception the code allows. For the appliance room, the note holds the exceptions to the sole-source rule.",
+    columns: [
+      { key: "space", label: "Space", kind: "enum", options: RETURN_AIR_SPACES, required: true },
+      { key: "prohibited", label: "Prohibited", kind: "boolean", required: true },
+      { key: "exceptionNote", label: "Exception", kind: "text", required: false },
+      citationColumn,
+    ],
+    uniqueBy: ["space"],
+    addedLater: true,
   },
 } as const satisfies Record<string, TableDefinition>;
 

@@ -6,6 +6,7 @@ import {
   ORIENTATIONS,
   RATED_LOUVER_TYPES,
   RESTRICTED_PASSAGES,
+  RETURN_AIR_SPACES,
   TERMINATION_OPENINGS,
   VENT_MATERIALS,
   VENT_SYSTEMS,
@@ -137,6 +138,14 @@ export const flueCoLimitRowSchema = z.object({
   citation,
 });
 
+/** Row of the `returnAirSpaces` table: whether return air may be drawn from a kind of space. */
+export const returnAirSpaceRowSchema = z.object({
+  space: z.enum(RETURN_AIR_SPACES),
+  prohibited: z.boolean(),
+  exceptionNote: z.string(),
+  citation,
+});
+
 /** The row type of a table. */
 export type RulebookRow<K extends RulebookTableKey> = z.infer<typeof rulebookContentSchema>[K][number];
 
@@ -158,6 +167,8 @@ export const rulebookContentSchema = z.object({
   commonVentCapacity: z.array(commonVentCapacityRowSchema).default([]),
   louverShares: z.array(louverShareRowSchema),
   flueCoLimits: z.array(flueCoLimitRowSchema),
+  // Rulebook versions stored before return air was checked have no such table.
+  returnAirSpaces: z.array(returnAirSpaceRowSchema).default([]),
 });
 
 /** Rulebook content as stored in a rulebook version. */
@@ -171,5 +182,7 @@ export type CapacityRow = z.infer<typeof capacityRowSchema>;
 export type VentConnectorCapacityRow = z.infer<typeof ventConnectorCapacityRowSchema>;
 /** Multiple-appliance common vent capacity row. */
 export type CommonVentCapacityRow = z.infer<typeof commonVentCapacityRowSchema>;
+/** Return-air space row. */
+export type ReturnAirSpaceRow = z.infer<typeof returnAirSpaceRowSchema>;
 /** Termination-height row. */
 export type TerminationHeightRow = z.infer<typeof terminationHeightRowSchema>;

@@ -24,12 +24,12 @@ describe("starter rulebook", () => {
     expect(validateRulebookContent(STARTER_RULEBOOK)).toEqual([]);
   });
 
-  test("every code value says it is from memory or a placeholder; every capacity row says demo data", () => {
+  test("every code value says whether it was read, recalled, is trade practice or a placeholder; every capacity row says demo data", () => {
     for (const key of RULEBOOK_TABLE_KEYS) {
       for (const row of STARTER_RULEBOOK[key] as { citation: string }[]) {
         if (key === "capacity") expect(row.citation).toBe(DEMO_CAPACITY_CITATION);
         else if (key === "ventConnectorCapacity" || key === "commonVentCapacity") expect(row.citation).toBe(DEMO_MULTIPLE_APPLIANCE_CITATION);
-        else expect(row.citation).toMatch(/from memory — verify against your adopted edition|Placeholder|read in the published text/);
+        else expect(row.citation).toMatch(/from memory — verify against your adopted edition|from memory, section numbers differ|found in (the )?published|common practice|Placeholder|read in the published text/);
       }
     }
     expect(DEMO_CAPACITY_CITATION).toBe("Demo data — invented, not from any code or manufacturer");

@@ -2,10 +2,11 @@ import type { InspectionData } from "@/lib/inspections/data";
 
 type VentRun = NonNullable<InspectionData["ventRun"]>;
 
-/** The editor's form: like the stored data, but the vent run, its termination and the air space always exist. */
-export type InspectionFormValues = Omit<InspectionData, "ventRun" | "airSpace"> & {
+/** The editor's form: like the stored data, but the vent run, its termination, the air space and the return air always exist. */
+export type InspectionFormValues = Omit<InspectionData, "ventRun" | "airSpace" | "returnAir"> & {
   ventRun: Omit<VentRun, "termination"> & { termination: NonNullable<VentRun["termination"]> };
   airSpace: NonNullable<InspectionData["airSpace"]>;
+  returnAir: NonNullable<InspectionData["returnAir"]>;
 };
 
 export function toFormValues(data: InspectionData): InspectionFormValues {
@@ -14,6 +15,7 @@ export function toFormValues(data: InspectionData): InspectionFormValues {
     ...data,
     ventRun: { ...ventRun, termination: ventRun.termination ?? { nearbyOpenings: [] } },
     airSpace: data.airSpace ?? { id: "air-space", rooms: [], openings: [] },
+    returnAir: data.returnAir ?? { id: "return-air", openings: [] },
   };
 }
 

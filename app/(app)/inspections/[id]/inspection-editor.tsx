@@ -16,6 +16,7 @@ import type { SiteCheckItemDefinition } from "@/lib/site-checks";
 import { AppliancesSection } from "./appliances-section";
 import { VentRunSection } from "./vent-run-section";
 import { AirSection } from "./air-section";
+import { ReturnAirSection } from "./return-air-section";
 import { ReadingsSection } from "./readings-section";
 import { SiteChecksSection } from "./site-checks-section";
 import { SubmitSection } from "./submit-section";
@@ -31,6 +32,7 @@ const SECTIONS = [
   ["appliances", "Appliances"],
   ["ventRun", "Vent run"],
   ["airSpace", "Air"],
+  ["returnAir", "Return air"],
   ["readings", "Readings"],
   ["siteChecks", "Site checks"],
   ["photos", "Photos"],
@@ -209,6 +211,7 @@ export function InspectionEditor(props: EditorProps) {
             drawing={<VentRunDrawing ventRun={values.ventRun} appliances={values.appliances} findings={findings as unknown as Finding[]} />}
           />
           <AirSection control={control} editable={props.editable} sizing={shown?.sizing.airSpace ?? null} />
+          <ReturnAirSection control={control} editable={props.editable} sizing={shown?.sizing.returnAir ?? null} findings={findings} />
           <ReadingsSection control={control} editable={props.editable} setValue={setValue} />
           <SiteChecksSection control={control} editable={props.editable} items={props.siteCheckItems} />
           <Section id="photos" title="Photos">
