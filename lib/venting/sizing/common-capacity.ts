@@ -1,7 +1,7 @@
 import { atMost } from "../compare";
 import type { ConnectorMaterial, VentMaterial } from "../enums";
 import type { Appliance, VentRun } from "../inputs";
-import type { CommonVentGrid, PreparedRulebook, RuleRef } from "../rulebook/prepare";
+import type { CapacityGrid, CommonVentGrid, PreparedRulebook, RuleRef } from "../rulebook/prepare";
 import { extraTurns, fits, lerp, limitsFor, lookupInGrid, type CapacityLimits, type CapacityLookup } from "./capacity";
 
 /**
@@ -97,14 +97,12 @@ function readConnectorAt(
   rb: PreparedRulebook,
   ventMaterial: VentMaterial,
   c: ConnectorProfile,
-  diameterIn: number,
+  grid: CapacityGrid<"ventConnectorCapacity">,
   heightFt: number,
   fanAssisted: boolean,
   rules: ConnectorRules,
 ): ConnectorReading {
-  const grids = rb.ventConnectorCapacity.get(`${ventMaterial}|${c.material}`);
-  const grid = grids?.find((g) => g.diameterIn === diameterIn);
-  if (!grid) return { ok: false, reason: "no_table" };
+  const diameterIn = grid.diameterIn;
   const look: CapacityLookup = lookupInGrid(grid, heightFt, c.riseFt, rules.interpolate);
   if (!look.ok) return look;
   const { extra45, extra90 } = extraTurns({ turns45: c.turns45, turns90: c.turns90, hasLateral: true }, { assumed90WithLateral: rules.assumed90, lossPer45Pct: rules.lossPer45Pct, lossPer90Pct: rules.lossPer90Pct });
@@ -150,7 +148,9 @@ export function connectorLimits(
   fanAssisted: boolean,
   rules: ConnectorRules,
 ): ConnectorReading {
-  return readConnectorAt(rb, ventMaterial, c, c.diameterIn, heightFt, fanAssisted, rules);
+  const grid = rb.ventConnectorCapacity.get(`${ventMaterial}|${c.material}`)?.find((g) => g.diameterIn === c.diameterIn);
+  if (!grid) return { ok: false, reason: "no_table" };
+  return readConnectorAt(rb, ventMaterial, c, grid, heightFt, fanAssisted, rules);
 }
 
 /**
@@ -172,7 +172,7 @@ export function smallestConnectorDiameter(
   if (!grids) return null;
   for (const g of grids) {
     if (g.diameterIn < atLeastIn) continue;
-    const r = readConnectorAt(rb, ventMaterial, c, g.diameterIn, heightFt, fanAssisted, rules);
+    const r = readConnectorAt(rb, ventMaterial, c, g, heightFt, fanAssisted, rules);
     if (r.ok && fits(inputBtuh, r)) return g.diameterIn;
   }
   return null;
