@@ -98,6 +98,7 @@ export {
   evaluateReadings,
   evaluateOrphanedAppliance,
   evaluateInspection,
+  readFindingSummary,
   summarizeFindings,
 } from "./evaluate";
 export type {

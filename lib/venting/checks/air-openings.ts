@@ -203,6 +203,20 @@ export function checkOutdoorOpenings(
     }
     const reduced = factor < 1 && combo ? { citation: `${p.citation}; ${combo.citation}`, ref: p.ref } : p;
     let req: number;
+    if (o.kind === "outdoor_single_high" && ctx.connectorUnknown) {
+      // Without every connector's diameter the connector-area floor cannot be checked: only an
+      // opening already too small for the input can be judged; anything else needs the diameter.
+      const byInput = outdoorOpeningAreaSqIn(ctx.totalInputBtuh, p.value) * factor;
+      const area = openingArea(o, ctx.rb);
+      if (area.ok && !atLeast(area.freeSqIn, byInput)) {
+        checkOne(ctx, o, byInput, reduced, out, sizing);
+      } else {
+        const a = ctx.connectorUnknown;
+        out.push(finding(CODE, "needs-info", MESSAGES.airOpenings.needsConnector(a.label || a.id), openingTarget(ctx, o, null), reduced));
+        sizing.push({ openingId: o.id, requiredFreeAreaSqIn: null, requiredGrossAreaSqIn: null, freeAreaSqIn: area.ok ? area.freeSqIn : null });
+      }
+      continue;
+    }
     if (o.kind === "outdoor_single_high") {
       // The connector-area floor is not reduced by the indoor share.
       req = Math.max(outdoorOpeningAreaSqIn(ctx.totalInputBtuh, p.value) * factor, singleOpeningAreaSqIn(0, p.value, ctx.connectorAreaSumSqIn));

@@ -12,6 +12,8 @@ function Counts({ summary }: { summary: FindingSummary }) {
     { n: summary.counts["needs-info"], label: "needs info", cls: "text-info" },
     { n: summary.counts.warn, label: "warning", cls: "text-warn" },
     { n: summary.counts.pass, label: "pass", cls: "text-pass" },
+    // Stored summaries from before the status existed have no count for it.
+    { n: summary.counts["not-applicable"] ?? 0, label: "not applicable", cls: "text-na" },
   ];
   return (
     <p className="flex flex-wrap gap-x-3 text-sm font-semibold" data-testid="findings-counts">
@@ -41,7 +43,7 @@ export function FindingsPanel({ findings, summary, rulebookLabel }: { findings: 
         <Counts summary={summary} />
         <label className="flex items-center gap-1 text-xs text-ink-600">
           <input type="checkbox" className="accent-copper-600" checked={showPasses} onChange={(e) => setShowPasses(e.target.checked)} />
-          Show passes
+          Show passes and not applicable
         </label>
       </div>
       <p className="text-xs text-ink-500">Checked against {rulebookLabel}. Findings report the rulebook; local code and the manufacturer&apos;s instructions govern.</p>
