@@ -22,7 +22,8 @@ export function checkPassageSingleWall(ctx: VentRunContext, out: Finding[]): voi
     const entry = ctx.rb.passages.get(`${seg.material}|${passage}`);
     if (!entry) {
       // No row is no answer: whether this pipe may go there is not something to assume.
-      out.push(missingRuleFinding(CODE, `whether ${seg.material.replace("_", "-")} pipe may pass through a ${passage.replace("_", " ")}`, "prohibitedPassages", t));
+      const where = passage.replace("_", " ");
+      out.push(missingRuleFinding(CODE, `whether ${seg.material.replace("_", "-")} pipe may pass through ${/^[aeiou]/.test(where) ? "an" : "a"} ${where}`, "prohibitedPassages", t));
       continue;
     }
     if (!entry.row.prohibited) {
