@@ -304,16 +304,16 @@ export const MESSAGES = {
   },
   supports: {
     pass: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
-      `${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing.`,
+      `${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${plural(needed, "support", "supports")} needed at ${ft(spacingFt)} spacing.`,
     fail: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
-      `Only ${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing. Add ${n(needed - installed, 0)} so the pipe cannot sag or separate.`,
+      `Only ${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${plural(needed, "support", "supports")} needed at ${ft(spacingFt)} spacing. Add ${plural(needed - installed, "support", "supports")} so the pipe cannot sag or separate.`,
     needsInfo: () => "Enter the segment's length and the number of supports installed.",
   },
   fasteners: {
     pass: (count: number, min: number) =>
-      min === 0 ? `${plural(count, "fastener", "fasteners")} at each joint; the rulebook asks for none beyond the listed joint.` : `${plural(count, "fastener", "fasteners")} at each joint; at least ${n(min, 0)} needed.`,
+      min === 0 ? `${plural(count, "fastener", "fasteners")} at each joint; the rulebook asks for none beyond the listed joint.` : `${plural(count, "fastener", "fasteners")} at each joint; at least ${plural(min, "fastener", "fasteners")} needed.`,
     fail: (count: number, min: number) =>
-      `Only ${plural(count, "fastener", "fasteners")} at a joint; each joint needs at least ${n(min, 0)}. Add screws or rivets (never through the inner wall of Type B); tape is not a fastener.`,
+      `Only ${plural(count, "fastener", "fasteners")} at a joint; each joint needs at least ${plural(min, "fastener", "fasteners")}. Add screws or rivets (never through the inner wall of Type B); tape is not a fastener.`,
     needsInfo: () => "Enter the fewest fasteners found at any joint of this segment.",
   },
   locked: {
@@ -372,7 +372,7 @@ export const MESSAGES = {
     fail: (freeSqIn: number, requiredSqIn: number, what: string, grossSqIn: number | null) =>
       `The ${what} gives only ${n(freeSqIn, 1)} in² of free area; at least ${n(requiredSqIn, 1)} in² is needed.${grossSqIn === null ? "" : ` With this louver that is a gross opening of at least ${n(grossSqIn, 1)} in².`}`,
     count: (what: string, found: number, needed: number) =>
-      `The ${what} arrangement needs ${n(needed, 0)} openings (one within 12 in of the top, one within 12 in of the bottom); ${n(found, 0)} given. Add the missing opening.`,
+      `The ${what} arrangement needs ${n(needed, 0)} openings (one within 12 in of the top, one within 12 in of the bottom); ${plural(found, "opening is", "openings are")} given. Add the missing opening.`,
     notNeeded: () => "Indoor air is enough; outdoor openings are not required.",
     outdoorMissing: () => "Indoor air is not enough and no outdoor opening is given. Add outdoor openings sized by one of the rulebook's methods.",
     needsInfo: (what: string) => `Enter the ${what}'s width and height (or diameter, or stated free area) and its louver.`,

@@ -93,10 +93,11 @@ export function InspectionEditor(props: EditorProps) {
   const prepared = useMemo(() => prepareRulebook(props.rulebookContent), [props.rulebookContent]);
   const [restoredLocal, setRestoredLocal] = useState(false);
   // The same schema as the server's: a value out of its range gets its message beside the field
-  // as it is typed (the form's shape is the stored data's, so the paths match).
-  const form = useForm<InspectionFormValues, unknown, InspectionData>({
+  // as it is typed (the form's shape is the stored data's, so the paths match). Only the errors
+  // are used: the values are read with toData, never through handleSubmit.
+  const form = useForm<InspectionFormValues>({
     defaultValues: toFormValues(props.data),
-    resolver: zodResolver(inspectionDataSchema) as unknown as Resolver<InspectionFormValues, unknown, InspectionData>,
+    resolver: zodResolver(inspectionDataSchema) as unknown as Resolver<InspectionFormValues>,
     mode: "onChange",
   });
   const { control, getValues, setValue, reset } = form;
