@@ -29,7 +29,8 @@ const id = z.string().min(1).max(100);
  * nullable like every measured field.
  */
 function quantity(label: string, min: number, max: number, unit: string, options: { aboveMin?: boolean } = {}) {
-  const range = `${label} must be ${options.aboveMin ? "more than" : "between"} ${fmt(min)}${options.aboveMin ? " and at most" : " and"} ${fmt(max)}${unit ? ` ${unit}` : ""}.`;
+  const sentence = `${label} must be ${options.aboveMin ? "more than" : "between"} ${fmt(min)}${options.aboveMin ? " and at most" : " and"} ${fmt(max)}${unit ? ` ${unit}` : ""}`;
+  const range = sentence.endsWith(".") ? sentence : `${sentence}.`;
   const base = z.number({ error: `${label} must be a number${unit ? ` in ${unit}` : ""}.` });
   return (options.aboveMin ? base.gt(min, { error: range }) : base.min(min, { error: range })).max(max, { error: range }).nullish();
 }
