@@ -40,6 +40,8 @@ const config: Config = {
         fail: { DEFAULT: "#b3261e", soft: "#fbe7e5" },
         warn: { DEFAULT: "#8a5a00", soft: "#fdf1d8" },
         info: { DEFAULT: "#2b5a9e", soft: "#e5eefa" },
+        // Not applicable: a muted violet of its own, always with the words "Not applicable" and a dashed edge.
+        na: { DEFAULT: "#65508a", soft: "#f1edf7" },
       },
     },
   },

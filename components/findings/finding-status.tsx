@@ -2,6 +2,7 @@ import type { FindingStatus } from "@/lib/venting";
 
 export const STATUS_LABELS = {
   pass: "Pass",
+  "not-applicable": "Not applicable",
   fail: "Fail",
   warn: "Warning",
   "needs-info": "Needs info",
@@ -9,6 +10,8 @@ export const STATUS_LABELS = {
 
 const STYLES = {
   pass: "bg-pass-soft text-pass border-pass/30",
+  // The dashed edge tells "not applicable" apart without relying on its colour.
+  "not-applicable": "bg-na-soft text-na border-na/50 border-dashed",
   fail: "bg-fail-soft text-fail border-fail/30",
   warn: "bg-warn-soft text-warn border-warn/30",
   "needs-info": "bg-info-soft text-info border-info/30",

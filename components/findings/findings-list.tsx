@@ -3,7 +3,15 @@ import type { Comparator, Finding, FindingStatus } from "@/lib/venting";
 import { fmt as formatNumber } from "@/lib/venting/format";
 import { FindingStatusChip } from "./finding-status";
 
-const ORDER: Record<FindingStatus, number> = { fail: 0, "needs-info": 1, warn: 2, pass: 3 };
+const ORDER: Record<FindingStatus, number> = { fail: 0, "needs-info": 1, warn: 2, pass: 3, "not-applicable": 4 };
+
+const TONE: Record<FindingStatus, string> = {
+  fail: "border-l-fail",
+  warn: "border-l-warn",
+  "needs-info": "border-l-info",
+  pass: "border-l-pass",
+  "not-applicable": "border-l-na border-dashed",
+};
 
 const COMPARATOR_WORDS = { "≥": "at least", "≤": "at most", "=": "exactly", ">": "more than", "<": "less than", between: "between" } as const satisfies Record<Comparator, string>;
 
@@ -26,7 +34,8 @@ const SAFETY_TEXT = {
  * rulebook citation and what to do. `onSelect` lets the inspection editor jump to the field.
  */
 export function FindingsList({ findings, onSelect, showPasses = true }: { findings: readonly (Finding & { rulebookVersion?: string })[]; onSelect?: (finding: Finding) => void; showPasses?: boolean }) {
-  const sorted = [...findings].filter((f) => showPasses || f.status !== "pass").sort((a, b) => ORDER[a.status] - ORDER[b.status]);
+  // "Show passes" also shows what does not apply: neither asks anything of the installer.
+  const sorted = [...findings].filter((f) => showPasses || (f.status !== "pass" && f.status !== "not-applicable")).sort((a, b) => ORDER[a.status] - ORDER[b.status]);
   if (sorted.length === 0) return <p className="text-sm text-ink-600">No findings to show.</p>;
   return (
     <ul className="space-y-2" aria-label="Findings">
@@ -68,17 +77,17 @@ export function FindingsList({ findings, onSelect, showPasses = true }: { findin
             <p className="mt-2 text-xs text-ink-500">
               <span className="font-mono">{finding.code}</span>
               {" · "}
-              {finding.citation ? <>Source: {finding.citation}</> : <>The rulebook has no value for this check.</>}
+              {finding.citation ? <>Source: {finding.citation}</> : finding.status === "not-applicable" ? <>No rule applies to what was entered.</> : <>The rulebook has no value for this check.</>}
               {finding.rulebookVersion ? <> · {finding.rulebookVersion}</> : null}
             </p>
-            {finding.safety && finding.status !== "pass" ? (
+            {finding.safety && finding.status !== "pass" && finding.status !== "not-applicable" ? (
               <p role="note" className="mt-2 rounded border-l-4 border-fail bg-fail-soft px-2 py-1 text-xs font-medium text-fail">
                 {SAFETY_TEXT[finding.safety]} Local code and the manufacturer&apos;s instructions govern; a licensed professional must verify the work.
               </p>
             ) : null}
           </>
         );
-        const tone = finding.status === "fail" ? "border-l-fail" : finding.status === "warn" ? "border-l-warn" : finding.status === "needs-info" ? "border-l-info" : "border-l-pass";
+        const tone = TONE[finding.status];
         return (
           <li key={`${finding.code}-${finding.target.path}-${index}`} data-status={finding.status} data-code={finding.code}>
             {onSelect ? (

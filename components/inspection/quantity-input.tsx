@@ -96,7 +96,7 @@ function PlainQuantityInput<T extends FieldValues>({
   disabled?: boolean;
   className: string;
 }) {
-  const { field } = useController({ control, name });
+  const { field, fieldState } = useController({ control, name });
   const [text, setText] = useState(() => format(field.value, kind));
   const [error, setError] = useState<string | null>(null);
   const id = fieldId(name);
@@ -121,6 +121,8 @@ function PlainQuantityInput<T extends FieldValues>({
   };
 
   const unitLabel = unit ?? UNIT_LABEL[kind];
+  // An unreadable entry first; then the schema's range message for the value that was kept.
+  const shown = error ?? fieldState.error?.message ?? null;
   return (
     <div className={className}>
       <label htmlFor={id} className="label">
@@ -136,7 +138,7 @@ function PlainQuantityInput<T extends FieldValues>({
         className="input"
         disabled={disabled}
         value={text}
-        aria-invalid={error ? true : undefined}
+        aria-invalid={shown ? true : undefined}
         aria-describedby={`${id}-msg`}
         onChange={(e) => {
           setText(e.target.value);
@@ -147,8 +149,8 @@ function PlainQuantityInput<T extends FieldValues>({
           field.onBlur();
         }}
       />
-      <p id={`${id}-msg`} aria-live="polite" className={`mt-1 text-xs ${error ? "font-medium text-fail" : "text-ink-500"}`}>
-        {error ?? hint ?? HINTS[kind]}
+      <p id={`${id}-msg`} aria-live="polite" className={`mt-1 text-xs ${shown ? "font-medium text-fail" : "text-ink-500"}`}>
+        {shown ?? hint ?? HINTS[kind]}
       </p>
     </div>
   );
@@ -181,7 +183,7 @@ function FeetInchesInput<T extends FieldValues>({
   disabled?: boolean;
   className: string;
 }) {
-  const { field } = useController({ control, name });
+  const { field, fieldState } = useController({ control, name });
   const [parts, setParts] = useState(() => splitFeet(field.value));
   const [error, setError] = useState<string | null>(null);
   const id = fieldId(name);
@@ -213,6 +215,7 @@ function FeetInchesInput<T extends FieldValues>({
     if (final) setParts(splitFeet(parsed.value));
   };
 
+  const shown = error ?? fieldState.error?.message ?? null;
   return (
     <fieldset className={className}>
       <legend className="label">{label}</legend>
@@ -227,7 +230,7 @@ function FeetInchesInput<T extends FieldValues>({
           className="input w-full"
           disabled={disabled}
           value={parts.ft}
-          aria-invalid={error ? true : undefined}
+          aria-invalid={shown ? true : undefined}
           aria-describedby={`${id}-msg`}
           onChange={(e) => update({ ...parts, ft: e.target.value }, false)}
           onBlur={() => {
@@ -246,7 +249,7 @@ function FeetInchesInput<T extends FieldValues>({
           className="input w-full"
           disabled={disabled}
           value={parts.inch}
-          aria-invalid={error ? true : undefined}
+          aria-invalid={shown ? true : undefined}
           onChange={(e) => update({ ...parts, inch: e.target.value }, false)}
           onBlur={() => {
             update(parts, true);
@@ -255,8 +258,8 @@ function FeetInchesInput<T extends FieldValues>({
         />
         <span className="text-sm text-ink-500">in</span>
       </div>
-      <p id={`${id}-msg`} aria-live="polite" className={`mt-1 text-xs ${error ? "font-medium text-fail" : "text-ink-500"}`}>
-        {error ?? hint ?? HINTS.ft}
+      <p id={`${id}-msg`} aria-live="polite" className={`mt-1 text-xs ${shown ? "font-medium text-fail" : "text-ink-500"}`}>
+        {shown ?? hint ?? HINTS.ft}
       </p>
     </fieldset>
   );

@@ -7,7 +7,7 @@ import type { Role } from "@/lib/auth/roles";
 import { inspectionDataSchema, emptyInspectionData, type InspectionData } from "@/lib/inspections/data";
 import { evaluateInspectionData, submissionBlockers, type InspectionFinding } from "@/lib/inspections/evaluate";
 import { preparedFor, preparedForRef } from "@/lib/checks/run-check";
-import type { FindingSummary } from "@/lib/venting";
+import { readFindingSummary, type FindingSummary } from "@/lib/venting";
 import type { InspectionListQuery, ReviewSection } from "@/lib/schemas/inspection";
 import { recordAudit, type AuditActor } from "./audit";
 import { nowIso } from "./clock";
@@ -98,7 +98,7 @@ const SUMMARY_COLUMNS = [
 ];
 
 function toSummary(row: Record<string, unknown>): InspectionSummaryRow {
-  const summary = parseJson<FindingSummary | null>(row.summary_json as string, null);
+  const summary = parseJson<unknown>(row.summary_json as string, null);
   return {
     id: row.id as number,
     jobId: row.job_id as number,
@@ -111,7 +111,7 @@ function toSummary(row: Record<string, unknown>): InspectionSummaryRow {
     installerName: (row.installer_name as string | null) ?? null,
     submittedAt: (row.submitted_at as string | null) ?? null,
     approvedAt: (row.approved_at as string | null) ?? null,
-    summary: summary && typeof summary === "object" && "counts" in summary ? summary : null,
+    summary: readFindingSummary(summary),
     updatedAt: row.updated_at as string,
   };
 }
@@ -397,7 +397,7 @@ export async function saveDraft(args: { member: Member; id: number; version: num
       .andWhere("created_at", ">", new Date(Date.now() - 10 * 60 * 1000).toISOString())
       .orderBy("id", "desc")
       .first("id");
-    const summary = `Draft saved (version ${args.version + 1}): ${evaluation.summary.counts.fail} fail, ${evaluation.summary.counts["needs-info"]} needs info, ${evaluation.summary.counts.warn} warn, ${evaluation.summary.counts.pass} pass`;
+    const summary = `Draft saved (version ${args.version + 1}): ${evaluation.summary.counts.fail} fail, ${evaluation.summary.counts["needs-info"]} needs info, ${evaluation.summary.counts.warn} warn, ${evaluation.summary.counts.pass} pass, ${evaluation.summary.counts["not-applicable"]} not applicable`;
     if (recent) await trx("audit_events").where({ id: recent.id }).update({ summary, created_at: now });
     else await recordAudit(trx, { companyId: member.companyId, actor: actorOf(member), action: "inspection.draft_saved", entityType: "inspection", entityId: args.id, summary });
     return { version: args.version + 1, updatedAt: now };

@@ -34,7 +34,8 @@ export function siteCheckCode(key: string): string {
 
 /**
  * Turns the installer's answers into one finding per item, in the items' order: yes → pass,
- * not applicable → pass that says so, no → fail, no answer → needs-info. Pass only the items that
+ * not applicable → not-applicable (shown and counted as such, never as a pass), no → fail, no
+ * answer → needs-info. Pass only the items that
  * apply (see `applicableItems`) and are active. An item's basis (common practice) and caution
  * come from the item, or from the default item with the same key.
  */
@@ -55,7 +56,7 @@ export function siteCheckFindings(items: readonly ItemInput[], answers: SiteChec
         message = SITE_CHECK_MESSAGES.pass(label);
         break;
       case "na":
-        status = "pass";
+        status = "not-applicable";
         message = SITE_CHECK_MESSAGES.notApplicable(label);
         break;
       case "no":
@@ -79,7 +80,7 @@ export function siteCheckFindings(items: readonly ItemInput[], answers: SiteChec
       citation: commonPractice ? SITE_CHECK_COMMON_PRACTICE_CITATION : SITE_CHECK_CITATION,
       ruleRef: null,
       target: { section: "siteChecks", itemId: item.key, field: "answer", path: `siteChecks.${item.key}` },
-      safety: status === "pass" ? null : safety,
+      safety: status === "pass" || status === "not-applicable" ? null : safety,
     } satisfies SiteCheckFinding;
   });
 }

@@ -30,7 +30,7 @@ import { checkTerminationHeight } from "./checks/termination-height";
 import { checkVentAreaRatio } from "./checks/vent-area-ratio";
 import { checkVentCapacity } from "./checks/vent-capacity";
 import type { CommonVentSizing } from "./checks/common-vent-capacity";
-import { checkVentCategory } from "./checks/vent-category";
+import { checkVentCategory, reportSkippedCategoryIChecks } from "./checks/vent-category";
 import { checkVentMinHeight } from "./checks/vent-min-height";
 import type { ConnectorMaterial } from "./enums";
 import { FINDING_STATUSES, type Finding, type FindingStatus } from "./findings";
@@ -121,7 +121,7 @@ export interface ReturnAirResult {
 export interface FindingSummary {
   readonly total: number;
   readonly counts: Readonly<Record<FindingStatus, number>>;
-  /** The worst status present (fail > needs-info > warn > pass); null when there are no findings. */
+  /** The worst status present (fail > needs-info > warn > pass > not-applicable); null when there are no findings. */
   readonly worst: FindingStatus | null;
 }
 
@@ -158,6 +158,7 @@ export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance
   let mechanical = false;
   for (const a of served) if (a.category === "III" || a.category === "IV") mechanical = true;
   const categoryI = checkVentCategory(served, appliances, findings);
+  if (!categoryI) reportSkippedCategoryIChecks(served, isCommon, findings);
   const ctx: VentRunContext = {
     run: ventRun,
     rb: rulebook,
@@ -196,7 +197,7 @@ export function evaluateVentRun(ventRun: VentRun, appliances: readonly Appliance
     return {
       segmentId: s.id,
       requiredRiseIn: s.orientation === "horizontal" && typeof s.lengthFt === "number" && slope ? requiredRiseIn(s.lengthFt, slope.value) : null,
-      supportsNeeded: typeof s.lengthFt === "number" && spacing ? supportsNeeded(s.lengthFt, spacing.value) : null,
+      supportsNeeded: typeof s.lengthFt === "number" && spacing && spacing.value > 0 ? supportsNeeded(s.lengthFt, spacing.value) : null,
     };
   });
   let maxHorizontal: number | null = null;
@@ -331,13 +332,38 @@ function returnAirApplies(returnAir: ReturnAir, appliances: readonly Appliance[]
   return Boolean(returnAir.applianceId) || appliances.some((a) => a.kind === "furnace");
 }
 
-/** Counts findings per status and finds the worst. */
+/**
+ * Counts findings per status and finds the worst. A not-applicable finding says nothing about
+ * the work, so it is the worst only when every finding is not applicable.
+ */
 export function summarizeFindings(findings: readonly Finding[]): FindingSummary {
-  const counts: Record<FindingStatus, number> = { pass: 0, warn: 0, "needs-info": 0, fail: 0 };
+  const counts: Record<FindingStatus, number> = { pass: 0, "not-applicable": 0, warn: 0, "needs-info": 0, fail: 0 };
   for (const f of findings) counts[f.status]++;
   let worst: FindingStatus | null = null;
-  for (const s of FINDING_STATUSES) if (counts[s] > 0) worst = s;
+  for (const s of FINDING_STATUSES) if (s !== "not-applicable" && counts[s] > 0) worst = s;
+  if (worst === null && counts["not-applicable"] > 0) worst = "not-applicable";
   return { total: findings.length, counts, worst };
+}
+
+/**
+ * Reads a summary stored by an older version (before a status existed, its count is missing):
+ * every status gets a count, missing ones 0, and `total` and `worst` are kept. Null for
+ * anything that is not a summary.
+ */
+export function readFindingSummary(value: unknown): FindingSummary | null {
+  if (!value || typeof value !== "object" || !("counts" in value)) return null;
+  const raw = value as { total?: unknown; counts?: unknown; worst?: unknown };
+  if (!raw.counts || typeof raw.counts !== "object") return null;
+  const stored = raw.counts as Record<string, unknown>;
+  const counts = {} as Record<FindingStatus, number>;
+  let sum = 0;
+  for (const s of FINDING_STATUSES) {
+    const n = stored[s];
+    counts[s] = typeof n === "number" && Number.isFinite(n) && n >= 0 ? n : 0;
+    sum += counts[s];
+  }
+  const worst = typeof raw.worst === "string" && (FINDING_STATUSES as readonly string[]).includes(raw.worst) ? (raw.worst as FindingStatus) : null;
+  return { total: typeof raw.total === "number" && Number.isFinite(raw.total) ? raw.total : sum, counts, worst };
 }
 
 /**

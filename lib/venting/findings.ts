@@ -1,11 +1,18 @@
 import { fmt } from "./format";
 import type { RuleRef } from "./rulebook/prepare";
 
-/** Outcome of one check. `needs-info` means a value the check needs is missing. */
-export type FindingStatus = "pass" | "fail" | "warn" | "needs-info";
+/**
+ * Outcome of one check. `needs-info` means a value the check needs is missing (or the rulebook
+ * lacks the value: "not checked"); `not-applicable` means the rule does not apply to what was
+ * entered, with the reason in the message.
+ */
+export type FindingStatus = "pass" | "not-applicable" | "fail" | "warn" | "needs-info";
 
-/** Statuses from best to worst. */
-export const FINDING_STATUSES = ["pass", "warn", "needs-info", "fail"] as const satisfies readonly FindingStatus[];
+/**
+ * Statuses from best to worst, in display order. `not-applicable` says nothing about the work,
+ * so a summary's `worst` passes over it unless every finding is not applicable.
+ */
+export const FINDING_STATUSES = ["pass", "not-applicable", "warn", "needs-info", "fail"] as const satisfies readonly FindingStatus[];
 
 /** Safety cautions that a UI and the PDF must make prominent. */
 export type SafetyFlag = "co" | "spillage" | "concealed_single_wall";
@@ -241,9 +248,17 @@ const n = fmt;
 const ft = (v: number) => `${n(v)} ft`;
 const inch = (v: number) => `${n(v)} in`;
 const btuh = (v: number) => `${n(v, 0)} Btu/h`;
-const HUMAN: Record<string, string> = { single_wall: "single-wall", type_b: "Type B", masonry_lined: "lined masonry" };
+const HUMAN: Record<string, string> = {
+  single_wall: "single-wall",
+  type_b: "Type B",
+  masonry_lined: "lined masonry",
+  natural_draft: "natural-draft",
+  mechanical_draft: "mechanical-draft",
+};
 const human = (s: string) => HUMAN[s] ?? s.replace(/_/g, " ");
 const plural = (count: number, one: string, many: string) => `${n(count, 0)} ${count === 1 ? one : many}`;
+/** "an attic", "a floor". */
+const aOrAn = (word: string) => `${/^[aeiou]/i.test(word) ? "an" : "a"} ${word}`;
 
 /** A return-air space with its article, for messages. */
 const RETURN_SPACE_PHRASES: Record<string, string> = {
@@ -264,7 +279,7 @@ const aSpace = (s: string) => RETURN_SPACE_PHRASES[s] ?? `a ${human(s)}`;
 /** Message templates, one group per finding code. */
 export const MESSAGES = {
   missingRule: (what: string, table: string) =>
-    `The rulebook has no value for ${what}; add it to the "${table}" table to run this check.`,
+    `Not checked: the rulebook has no value for ${what}; add it to the "${table}" table to run this check.`,
   connectorSlope: {
     pass: (riseIn: number, lengthFt: number, requiredIn: number) =>
       `Rises ${inch(riseIn)} over ${ft(lengthFt)} of horizontal run; at least ${inch(requiredIn)} is needed.`,
@@ -317,6 +332,8 @@ export const MESSAGES = {
     notCategoryI: (label: string, what: string) =>
       `${label} is ${what}; its venting follows the manufacturer's instructions, which Flueward's Category I vent checks do not cover. Check the vent against those instructions.`,
     needsInfo: (label: string) => `Enter the venting category and draft type of ${label} to run the vent checks.`,
+    skipped: (title: string, label: string, what: string) =>
+      `Not applicable: "${title}" is a Category I rule and ${label} is ${what}; the manufacturer's instructions govern this part of its venting.`,
   },
   ventCapacity: {
     pass: (inputBtuh: number, minBtuh: number | null, maxBtuh: number, d: number, heightFt: number, lateralFt: number, note: string) =>
@@ -405,9 +422,9 @@ export const MESSAGES = {
   },
   ventAreaRatio: {
     pass: (ventIn: number, outletIn: number, ratio: number, max: number) =>
-      `The ${inch(ventIn)} vent has ${n(ratio, 1)} times the flow area of the smallest outlet it serves (${inch(outletIn)}); at most ${n(max, 1)} times is allowed.`,
+      `The ${inch(ventIn)} vent has ${n(ratio, 1)} × the flow area of the smallest outlet it serves (${inch(outletIn)}); at most ${n(max, 1)} × is allowed.`,
     fail: (ventIn: number, outletIn: number, ratio: number, max: number) =>
-      `The ${inch(ventIn)} vent has ${n(ratio, 1)} times the flow area of the ${inch(outletIn)} outlet it serves; at most ${n(max, 1)} times is allowed. An oversized vent stays cold and may condense or spill: use a smaller vent or a listed liner sized from the tables.`,
+      `The ${inch(ventIn)} vent has ${n(ratio, 1)} × the flow area of the ${inch(outletIn)} outlet it serves; at most ${n(max, 1)} × is allowed. An oversized vent stays cold and may condense or spill: use a smaller vent or a listed liner sized from the tables.`,
     needsInfo: () => "Enter the vent diameter and the outlet diameter of every appliance on it to check that the vent is not oversized.",
     masonry: () => "The area-ratio check reads round vents; for a lined masonry chimney compare the liner's area with the outlets by hand.",
   },
@@ -426,16 +443,16 @@ export const MESSAGES = {
   },
   supports: {
     pass: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
-      `${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing.`,
+      `${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${plural(needed, "support", "supports")} needed at ${ft(spacingFt)} spacing.`,
     fail: (installed: number, needed: number, lengthFt: number, spacingFt: number) =>
-      `Only ${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${n(needed, 0)} needed at ${ft(spacingFt)} spacing. Add ${n(needed - installed, 0)} so the pipe cannot sag or separate.`,
+      `Only ${plural(installed, "support", "supports")} on ${ft(lengthFt)}; at least ${plural(needed, "support", "supports")} needed at ${ft(spacingFt)} spacing. Add ${plural(needed - installed, "support", "supports")} so the pipe cannot sag or separate.`,
     needsInfo: () => "Enter the segment's length and the number of supports installed.",
   },
   fasteners: {
     pass: (count: number, min: number) =>
-      min === 0 ? `${plural(count, "fastener", "fasteners")} at each joint; the rulebook asks for none beyond the listed joint.` : `${plural(count, "fastener", "fasteners")} at each joint; at least ${n(min, 0)} needed.`,
+      min === 0 ? `${plural(count, "fastener", "fasteners")} at each joint; the rulebook asks for none beyond the listed joint.` : `${plural(count, "fastener", "fasteners")} at each joint; at least ${plural(min, "fastener", "fasteners")} needed.`,
     fail: (count: number, min: number) =>
-      `Only ${plural(count, "fastener", "fasteners")} at a joint; each joint needs at least ${n(min, 0)}. Add screws or rivets (never through the inner wall of Type B); tape is not a fastener.`,
+      `Only ${plural(count, "fastener", "fasteners")} at a joint; each joint needs at least ${plural(min, "fastener", "fasteners")}. Add screws or rivets (never through the inner wall of Type B); tape is not a fastener.`,
     needsInfo: () => "Enter the fewest fasteners found at any joint of this segment.",
   },
   locked: {
@@ -444,9 +461,9 @@ export const MESSAGES = {
     needsInfo: () => "Confirm whether every section of this segment is locked.",
   },
   passage: {
-    pass: (material: string, passage: string) => `A ${human(material)} connector may pass through ${passage === "none" ? "open space" : `a ${human(passage)}`} under this rulebook.`,
+    pass: (material: string, passage: string) => `A ${human(material)} connector may pass through ${passage === "none" ? "open space" : aOrAn(human(passage))} under this rulebook.`,
     fail: (material: string, passage: string, note: string) =>
-      `A ${human(material)} connector may not pass through a ${human(passage)}. Replace this segment with Type B (or listed) pipe, or reroute it.${note ? ` ${note}` : ""}`,
+      `A ${human(material)} connector may not pass through ${aOrAn(human(passage))}. Replace this segment with Type B (or listed) pipe, or reroute it.${note ? ` ${note}` : ""}`,
     thimble: (material: string) =>
       `A ${human(material)} connector passes through a wall without a listed ventilated thimble. Fit the thimble or reroute.`,
     thimbleNeedsInfo: () => "Confirm whether a listed ventilated thimble is fitted where this segment passes through the wall.",
@@ -473,6 +490,8 @@ export const MESSAGES = {
     fail: (what: string, distanceFt: number, minFt: number, aboveMinFt: number | null) =>
       `The termination is only ${ft(distanceFt)} from the ${what}; it must be at least ${ft(minFt)} away${aboveMinFt === null ? "" : ` or at least ${ft(aboveMinFt)} above it`}. Move the termination.`,
     needsInfo: (what: string) => `Enter the distance from the termination to the ${what} (and how far above it the termination is).`,
+    otherSystem: (what: string, rowSystems: readonly string[], system: string) =>
+      `Not applicable: the rulebook's distances from ${aOrAn(what)} are for ${rowSystems.map(human).join(" and ")} vents, and this vent is ${human(system)}.`,
   },
   airVolume: {
     pass: (availableCuFt: number, requiredCuFt: number, method: string) =>
@@ -492,12 +511,14 @@ export const MESSAGES = {
     fail: (freeSqIn: number, requiredSqIn: number, what: string, grossSqIn: number | null) =>
       `The ${what} gives only ${n(freeSqIn, 1)} in² of free area; at least ${n(requiredSqIn, 1)} in² is needed.${grossSqIn === null ? "" : ` With this louver that is a gross opening of at least ${n(grossSqIn, 1)} in².`}`,
     count: (what: string, found: number, needed: number) =>
-      `The ${what} arrangement needs ${n(needed, 0)} openings (one within 12 in of the top, one within 12 in of the bottom); ${n(found, 0)} given. Add the missing opening.`,
+      `The ${what} arrangement needs ${n(needed, 0)} openings (one within 12 in of the top, one within 12 in of the bottom); ${plural(found, "opening is", "openings are")} given. Add the missing opening.`,
     notNeeded: () => "Indoor air is enough; outdoor openings are not required.",
     outdoorMissing: () => "Indoor air is not enough and no outdoor opening is given. Add outdoor openings sized by one of the rulebook's methods.",
     needsInfo: (what: string) => `Enter the ${what}'s width and height (or diameter, or stated free area) and its louver.`,
     needsShare: (what: string) => `Enter the free-area share stated by the maker of the ${what}'s louver.`,
     noRoom: (what: string) => `Say which room the ${what} joins to the appliance's space.`,
+    needsConnector: (label: string) =>
+      `Enter the connector diameter of ${label} (or its outlet diameter): a single outdoor opening must also be at least the total area of the vent connectors in the space, which cannot be checked without it.`,
   },
   airOpeningDimension: {
     pass: (dimIn: number, minIn: number) => `The smallest dimension is ${inch(dimIn)}; at least ${inch(minIn)} is needed.`,
@@ -510,7 +531,6 @@ export const MESSAGES = {
       `Air-free CO is ${n(coAf, 0)} ppm, above the ${n(limit, 0)} ppm limit. Do not leave the appliance running: find the cause (combustion air, burner, heat exchanger, venting) and retest.`,
     badO2: (o2: number) => `An O2 reading of ${n(o2, 1)} % means the probe is not sampling flue gases; reposition the probe and read again.`,
     needsInfo: () => "Enter the flue CO (ppm) and O2 (%) measured after the burner has run steadily.",
-    noLimit: (kind: string) => `The rulebook has no flue CO limit for ${human(kind)} appliances; add one to the "Flue CO limits" table.`,
   },
   readingsAmbientCo: {
     pass: (ppm: number, marginal: number) => `Ambient CO is ${n(ppm, 0)} ppm, below the ${n(marginal, 0)} ppm caution level.`,
@@ -525,12 +545,15 @@ export const MESSAGES = {
     fail: (draft: number, limit: number) =>
       `Draft ${n(draft, 3)} in. w.c. is weaker than ${n(limit, 3)} in. w.c. Check for a blocked or undersized vent, depressurisation of the space, or insufficient vent height.`,
     needsInfo: () => "Measure the steady-state draft.",
+    directVent: () => "Not applicable: a direct-vent (sealed-combustion) appliance has no draft to measure at a draft hood or flue collar; follow the manufacturer's instructions.",
   },
   readingsSpillage: {
     pass: (s: number, max: number) => `Spillage stopped after ${n(s, 0)} s; at most ${n(max, 0)} s is allowed.`,
     fail: (s: number, max: number) =>
       `Spillage lasted ${n(s, 0)} s, longer than ${n(max, 0)} s. Find the cause (blocked vent, depressurisation, combustion air) and fix it before leaving.`,
     needsInfo: () => "Run a spillage test at the draft hood and enter the seconds until spillage stopped.",
+    fanAssisted: () => "Not applicable: a fan-assisted appliance has no draft hood, so there is no spillage test at the draft hood.",
+    directVent: () => "Not applicable: a direct-vent (sealed-combustion) appliance has no draft hood to test for spillage.",
   },
   readingsTemperatureRise: {
     pass: (rise: number, min: number, max: number) => `Temperature rise ${n(rise, 1)} °F is within the ${n(min, 0)}–${n(max, 0)} °F rating-plate range.`,
@@ -539,6 +562,8 @@ export const MESSAGES = {
     high: (rise: number, min: number, max: number) =>
       `Temperature rise ${n(rise, 1)} °F is above the ${n(min, 0)}–${n(max, 0)} °F range: too little airflow or over-firing. Check filter, duct restrictions, blower speed and gas input.`,
     needsInfo: () => "Enter the supply and return temperatures and the rating-plate temperature-rise range.",
+    needsKind: () => "Enter the appliance kind: the temperature rise is checked on furnaces.",
+    notFurnace: () => "Not applicable: the temperature rise across the heat exchanger is checked on furnaces, and this appliance is not a furnace.",
   },
   readingsInputRate: {
     pass: (measured: number, rated: number, diffPct: number, tol: number) =>

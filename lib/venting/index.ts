@@ -108,6 +108,7 @@ export {
   evaluateReadings,
   evaluateOrphanedAppliance,
   evaluateInspection,
+  readFindingSummary,
   summarizeFindings,
   evaluateReturnAir,
 } from "./evaluate";

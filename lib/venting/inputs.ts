@@ -22,10 +22,35 @@ import { fmt } from "./format";
  */
 
 const id = z.string().min(1).max(100);
-/** A measured quantity that cannot be negative. */
-const measured = z.number().min(0).nullish();
-/** A whole count that cannot be negative. */
-const count = z.int().min(0).nullish();
+
+/**
+ * A measured quantity within the range a residential or light-commercial job can have, so that
+ * a slip of the finger (an extra zero, a value in the wrong unit) is caught with a message
+ * naming the field, the range and its unit instead of reaching the checks. Optional and
+ * nullable like every measured field.
+ */
+function quantity(label: string, min: number, max: number, unit: string, options: { aboveMin?: boolean } = {}) {
+  const sentence = `${label} must be ${options.aboveMin ? "more than" : "between"} ${fmt(min)}${options.aboveMin ? " and at most" : " and"} ${fmt(max)}${unit ? ` ${unit}` : ""}`;
+  const range = sentence.endsWith(".") ? sentence : `${sentence}.`;
+  const base = z.number({ error: `${label} must be a number${unit ? ` in ${unit}` : ""}.` });
+  return (options.aboveMin ? base.gt(min, { error: range }) : base.min(min, { error: range })).max(max, { error: range }).nullish();
+}
+
+/** A whole count from 0 up to `max`. */
+function count(label: string, max: number) {
+  const range = `${label} must be a whole number between 0 and ${fmt(max)}.`;
+  return z.int({ error: range }).min(0, { error: range }).max(max, { error: range }).nullish();
+}
+
+/** Ranges shared by several fields, in the field's unit. */
+const LENGTH_FT = [0, 500] as const;
+const HEIGHT_FT = [0, 300] as const;
+const DIAMETER_IN = [1, 48] as const;
+const INPUT_BTUH = [0, 10_000_000] as const;
+const CLEARANCE_IN = [0, 120] as const;
+const TURNS = 50;
+const CO_PPM = [0, 10_000] as const;
+const TEMPERATURE_F = [-60, 600] as const;
 
 /** A gas appliance. */
 export const applianceSchema = z.object({
@@ -34,15 +59,15 @@ export const applianceSchema = z.object({
   kind: z.enum(APPLIANCE_KINDS).nullish(),
   fuel: z.enum(FUELS).nullish(),
   /** Rated input from the rating plate, Btu/h. */
-  inputBtuh: measured,
+  inputBtuh: quantity("Input", ...INPUT_BTUH, "Btu/h"),
   category: z.enum(VENT_CATEGORIES).nullish(),
   draft: z.enum(DRAFT_TYPES).nullish(),
   /** Flue collar or draft-hood outlet diameter, in. */
-  outletDiameterIn: z.number().positive().nullish(),
+  outletDiameterIn: quantity("Outlet diameter", ...DIAMETER_IN, "in"),
   /** Listed by a testing agency. */
   listed: z.boolean().nullish(),
   /** Connector clearance to combustibles stated in the appliance's instructions, in; governs when given. */
-  manualClearanceIn: measured,
+  manualClearanceIn: quantity("Clearance from the appliance instructions", ...CLEARANCE_IN, "in"),
   condensing: z.boolean().nullish(),
 });
 
@@ -52,20 +77,20 @@ export const connectorSegmentSchema = z.object({
   /** Appliance this connector belongs to; may be omitted when the run serves one appliance. */
   applianceId: id.nullish(),
   material: z.enum(CONNECTOR_MATERIALS).nullish(),
-  diameterIn: z.number().positive().nullish(),
+  diameterIn: quantity("Diameter", ...DIAMETER_IN, "in"),
   /** Length along the pipe, ft. */
-  lengthFt: measured,
+  lengthFt: quantity("Length", ...LENGTH_FT, "ft"),
   orientation: z.enum(ORIENTATIONS).nullish(),
   /** Rise over the segment's length when horizontal, in. */
-  riseIn: z.number().nullish(),
-  turns45: count,
-  turns90: count,
+  riseIn: quantity("Rise", -600, 600, "in"),
+  turns45: count("Turns of 45°", TURNS),
+  turns90: count("Turns of 90°", TURNS),
   /** Measured clearance to the nearest combustible material, in. */
-  clearanceIn: measured,
-  supportsInstalled: count,
+  clearanceIn: quantity("Clearance", ...CLEARANCE_IN, "in"),
+  supportsInstalled: count("Supports", 500),
   /** Fewest fasteners found at any joint of the segment. */
-  fastenersPerJoint: count,
-  joints: count,
+  fastenersPerJoint: count("Fasteners per joint", 20),
+  joints: count("Joints", 500),
   /** Every section locked (seams and joints engaged as listed). */
   sectionsLocked: z.boolean().nullish(),
   passesThrough: z.enum(PASSAGES).nullish(),
@@ -76,16 +101,16 @@ export const connectorSegmentSchema = z.object({
 /** The vent the connectors join. */
 export const ventSchema = z.object({
   material: z.enum(VENT_MATERIALS).nullish(),
-  diameterIn: z.number().positive().nullish(),
+  diameterIn: quantity("Vent diameter", ...DIAMETER_IN, "in"),
   /** From the highest draft-hood outlet or flue collar to the top of the vent, ft. */
-  heightFt: measured,
+  heightFt: quantity("Vent height", ...HEIGHT_FT, "ft"),
   /** Horizontal offset in the vent itself, ft. */
-  lateralFt: measured,
-  turns45: count,
-  turns90: count,
+  lateralFt: quantity("Vent lateral", ...LENGTH_FT, "ft"),
+  turns45: count("Turns of 45°", TURNS),
+  turns90: count("Turns of 90°", TURNS),
   serves: z.enum(["single", "common"]).nullish(),
   /** Horizontal length of a manifold joining the connectors before the common vent, ft (0 or empty: none). */
-  manifoldLengthFt: measured,
+  manifoldLengthFt: quantity("Manifold length", ...LENGTH_FT, "ft"),
 });
 
 /** A building opening near the termination. */
@@ -93,23 +118,23 @@ export const terminationOpeningSchema = z.object({
   id,
   kind: z.enum(TERMINATION_OPENINGS),
   /** Shortest distance from the termination to the opening, ft. */
-  distanceFt: measured,
+  distanceFt: quantity("Distance to the opening", ...LENGTH_FT, "ft"),
   /** How far the termination is above the opening, ft (negative when below). */
-  ventAboveFt: z.number().nullish(),
+  ventAboveFt: quantity("Height above the opening", -HEIGHT_FT[1], HEIGHT_FT[1], "ft"),
 });
 
 /** Where the vent ends. */
 export const terminationSchema = z.object({
   /** Roof pitch as rise in inches per 12 in of run. */
-  roofPitchPer12: measured,
+  roofPitchPer12: quantity("Roof pitch", 0, 48, "in per 12"),
   /** Height of the lowest discharge opening above the roof where the vent passes through, ft. */
-  heightAboveRoofFt: measured,
+  heightAboveRoofFt: quantity("Height above the roof", ...HEIGHT_FT, "ft"),
   /** Size of the vent cap, in; with `listedCap`, whether the roof-pitch table applies. */
-  capSizeIn: z.number().positive().nullish(),
+  capSizeIn: quantity("Cap size", ...DIAMETER_IN, "in"),
   listedCap: z.boolean().nullish(),
-  distanceToVerticalWallFt: measured,
+  distanceToVerticalWallFt: quantity("Distance to a vertical wall", ...LENGTH_FT, "ft"),
   /** Height above any part of the building within 10 ft, ft (needed outside the pitch table). */
-  heightAboveNearbyStructureFt: z.number().nullish(),
+  heightAboveNearbyStructureFt: quantity("Height above the building within 10 ft", -HEIGHT_FT[1], HEIGHT_FT[1], "ft"),
   nearbyOpenings: z.array(terminationOpeningSchema).default([]),
 });
 
@@ -127,11 +152,11 @@ export const ventRunSchema = z.object({
 export const roomSchema = z.object({
   id,
   label: z.string().max(200).default(""),
-  lengthFt: measured,
-  widthFt: measured,
-  heightFt: measured,
+  lengthFt: quantity("Room length", ...LENGTH_FT, "ft"),
+  widthFt: quantity("Room width", ...LENGTH_FT, "ft"),
+  heightFt: quantity("Room height", ...HEIGHT_FT, "ft"),
   /** Volume when the room is not a simple box, ft³; used in place of the dimensions. */
-  volumeCuFt: measured,
+  volumeCuFt: quantity("Room volume", 0, 10_000_000, "ft³"),
   /** Joined to the appliance room without a door (one open space). */
   openToApplianceRoom: z.boolean().nullish(),
 });
@@ -143,15 +168,15 @@ export const airOpeningSchema = z.object({
   /** For indoor openings: the room it joins to the appliance's space. */
   roomId: id.nullish(),
   position: z.enum(OPENING_POSITIONS).nullish(),
-  widthIn: measured,
-  heightIn: measured,
+  widthIn: quantity("Opening width", 0, 600, "in"),
+  heightIn: quantity("Opening height", 0, 600, "in"),
   /** For round ducts instead of width × height, in. */
-  diameterIn: measured,
+  diameterIn: quantity("Duct diameter", 0, 120, "in"),
   louver: z.enum(LOUVER_TYPES).default("none"),
   /** Free-area share stated by the louver maker (0–1); required for `other`. */
-  freeAreaShare: z.number().min(0).max(1).nullish(),
+  freeAreaShare: quantity("Free-area share", 0, 1, "(a share: 0.75 for 75 %)"),
   /** Free area stated outright, in²; takes the place of dimensions × share. */
-  freeAreaSqIn: measured,
+  freeAreaSqIn: quantity("Free area", 0, 100_000, "in²"),
 });
 
 /** A room or set of connected rooms supplying combustion air. */
@@ -163,7 +188,7 @@ export const airSpaceSchema = z.object({
   /** Appliances in the space; when omitted, every appliance of the inspection. */
   applianceIds: z.array(id).nullish(),
   /** Known air changes per hour of the building, when measured. */
-  airChangesPerHour: z.number().positive().nullish(),
+  airChangesPerHour: quantity("Air changes per hour", 0.01, 10, "ACH"),
   openings: z.array(airOpeningSchema).default([]),
 });
 
@@ -171,32 +196,33 @@ export const airSpaceSchema = z.object({
 export const readingsSchema = z.object({
   applianceId: id,
   /** Draft at steady state, in. w.c. (negative is draft toward the vent). */
-  draftInWc: z.number().nullish(),
+  draftInWc: quantity("Draft", -1, 1, "in. w.c."),
   /** Seconds of spillage at the draft hood before the draft was established. */
-  spillageSeconds: measured,
+  spillageSeconds: quantity("Spillage time", 0, 3600, "s"),
   /** Flue CO as measured (not air-free), ppm. */
-  flueCoPpm: measured,
-  /** Flue O2, %. */
-  flueO2Pct: z.number().min(0).max(100).nullish(),
+  flueCoPpm: quantity("Flue CO", ...CO_PPM, "ppm"),
+  /** Flue O2, % (20.9 % is outdoor air). */
+  flueO2Pct: quantity("Flue O2", 0, 20.9, "%"),
   /** Ambient CO in the appliance space, ppm. */
-  ambientCoPpm: measured,
-  supplyTempF: z.number().nullish(),
-  returnTempF: z.number().nullish(),
+  ambientCoPpm: quantity("Ambient CO", ...CO_PPM, "ppm"),
+  supplyTempF: quantity("Supply temperature", ...TEMPERATURE_F, "°F"),
+  returnTempF: quantity("Return temperature", ...TEMPERATURE_F, "°F"),
   /** Temperature-rise range on the rating plate, °F. */
-  nameplateRiseMinF: z.number().nullish(),
-  nameplateRiseMaxF: z.number().nullish(),
+  nameplateRiseMinF: quantity("Rating-plate rise, low end", 0, 200, "°F"),
+  nameplateRiseMaxF: quantity("Rating-plate rise, high end", 0, 200, "°F"),
   /** Gas meter test dial size, ft³ per revolution. */
-  meterDialCuFt: z.number().positive().nullish(),
-  meterSecondsPerRev: z.number().positive().nullish(),
+  meterDialCuFt: quantity("Meter dial size", 0, 100, "ft³", { aboveMin: true }),
+  /** Seconds per revolution of that dial; at least a second, as no hand-timed dial turns faster. */
+  meterSecondsPerRev: quantity("Seconds per revolution", 1, 3600, "s"),
   /** Heating value of the gas from the utility or supplier, Btu/ft³. */
-  heatingValueBtuPerCuFt: z.number().positive().nullish(),
+  heatingValueBtuPerCuFt: quantity("Heating value", 500, 3500, "Btu/ft³"),
 });
 
 /** An appliance taken off a previously common vent. */
 export const removedApplianceSchema = z.object({
   id,
   label: z.string().max(200).default(""),
-  inputBtuh: measured,
+  inputBtuh: quantity("Input", ...INPUT_BTUH, "Btu/h"),
 });
 
 /**

@@ -178,6 +178,10 @@ test("autosave survives a refresh, and two editors get a conflict instead of an 
   expect((await other.put(`/api/inspections/${id}/draft`, { data: { version: fresh.version, data: { ...fresh.data, notes: "Supervisor's note" } } })).status()).toBe(200);
   const stale = await other.put(`/api/inspections/${id}/draft`, { data: { version: fresh.version, data: fresh.data } });
   expect(stale.status()).toBe(409);
+  // A value out of its physical range is refused with the field, the range and the unit.
+  const outOfRange = await other.put(`/api/inspections/${id}/draft`, { data: { version: fresh.version + 1, data: { ...fresh.data, readings: [{ applianceId: "x", flueO2Pct: 25 }] } } });
+  expect(outOfRange.status()).toBe(400);
+  expect((await outOfRange.json()).error.fields["data.readings.0.flueO2Pct"]).toBe("Flue O2 must be between 0 and 20.9 %.");
 
   await page.locator("#f-notes").fill("Installer's later note");
   await expect(page.getByRole("alert").filter({ hasText: /Someone else saved/ })).toBeVisible({ timeout: 15_000 });

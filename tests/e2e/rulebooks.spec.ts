@@ -113,13 +113,19 @@ test.describe("rulebooks", () => {
     expect(result.summary.total).toBe(result.findings.length);
     expect(result.findings.map((f: { code: string }) => f.code)).toEqual(expect.arrayContaining(["connector.slope", "vent.capacity", "air.volume", "readings.co_air_free"]));
     for (const f of result.findings) {
-      expect(["pass", "fail", "warn", "needs-info"]).toContain(f.status);
+      expect(["pass", "not-applicable", "fail", "warn", "needs-info"]).toContain(f.status);
       expect(typeof f.message).toBe("string");
     }
 
     const bad = await api.post("/api/check", { data: { appliances: [] } });
     expect(bad.status()).toBe(400);
     expect(Object.keys((await bad.json()).error.fields)).toContain("appliances");
+    // A value outside its physical range names the field, the range and the unit.
+    const huge = await api.post("/api/check", { data: { appliances: [{ id: "a", inputBtuh: 20_000_000 }] } });
+    expect(huge.status()).toBe(400);
+    const hugeBody = await huge.json();
+    expect(hugeBody.error.code).toBe("validation_failed");
+    expect(hugeBody.error.fields["appliances.0.inputBtuh"]).toBe("Input must be between 0 and 10,000,000 Btu/h.");
 
     const other = await apiAs(baseURL!, "otherCompanyAdmin");
     const { latest: otherLatest } = await starter(other);

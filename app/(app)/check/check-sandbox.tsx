@@ -82,7 +82,7 @@ export function CheckSandbox({ versions, example }: { versions: { versionId: num
           <>
             <p className="text-sm text-ink-700" data-testid="check-summary">
               Checked against {result.rulebook.name}, version {result.rulebook.versionNumber}:{" "}
-              {(["fail", "needs-info", "warn", "pass"] as const).map((s) => `${result.summary.counts[s] ?? 0} ${s}`).join(", ")}
+              {(["fail", "needs-info", "warn", "pass", "not-applicable"] as const).map((s) => `${result.summary.counts[s] ?? 0} ${s.replace("-", " ")}`).join(", ")}
             </p>
             <FindingsList findings={result.findings} />
           </>

@@ -31,7 +31,8 @@ function findingCounts(row: InspectionSummaryRow): string {
   const { counts } = row.summary;
   const fails = counts.fail ?? 0;
   const justified = row.status !== "draft" && fails > 0 ? " (justified)" : "";
-  return `${fails} fail${justified}, ${counts.warn ?? 0} warn, ${counts.pass ?? 0} pass`;
+  const notApplicable = counts["not-applicable"] ?? 0;
+  return `${fails} fail${justified}, ${counts.warn ?? 0} warn, ${counts.pass ?? 0} pass${notApplicable ? `, ${notApplicable} not applicable` : ""}`;
 }
 
 /** Submitted inspections (by default), searched, filtered, sorted and paged by the page's address. */

@@ -3,10 +3,11 @@ import { formatNumber, type FindingStatus, type Quantity, type Requirement } fro
 import { COLOURS } from "./theme";
 
 /** Status words printed in the record: the meaning never rests on colour alone. */
-export const STATUS_WORDS = { pass: "PASS", fail: "FAIL", warn: "WARNING", "needs-info": "NEEDS INFO" } as const satisfies Record<FindingStatus, string>;
+export const STATUS_WORDS = { pass: "PASS", "not-applicable": "NOT APPLICABLE", fail: "FAIL", warn: "WARNING", "needs-info": "NEEDS INFO" } as const satisfies Record<FindingStatus, string>;
 
 export const STATUS_COLOURS: Record<FindingStatus, RGB> = {
   pass: COLOURS.pass,
+  "not-applicable": COLOURS.notApplicable,
   fail: COLOURS.fail,
   warn: COLOURS.warn,
   "needs-info": COLOURS.needsInfo,
@@ -15,6 +16,7 @@ export const STATUS_COLOURS: Record<FindingStatus, RGB> = {
 /** Status words as a homeowner reads them in the summary. */
 export const STATUS_EXPLAINED = {
   pass: "meets the table",
+  "not-applicable": "does not apply to this job",
   warn: "needs attention",
   "needs-info": "value not recorded",
   fail: "does not meet the table",

@@ -37,6 +37,7 @@ export const COLOURS = {
   fail: hex("#b3261e"),
   warn: hex("#8a5a00"),
   needsInfo: hex("#2f5a86"),
+  notApplicable: hex("#65508a"),
 } as const;
 
 /** Type sizes, pt. */

@@ -78,6 +78,8 @@ export interface AirContext {
   readonly applianceRoom: Room | null;
   /** Total connector area of the appliances in the space, in² (for the single-opening method). */
   readonly connectorAreaSumSqIn: number;
+  /** First appliance drawing room air whose connector (and outlet) diameter is unknown, so the total above falls short. */
+  readonly connectorUnknown: Appliance | null;
 }
 
 /** Builds the air context. `connectorDiameterIn` overrides outlet diameters per appliance id. */
@@ -94,6 +96,7 @@ export function airContext(
   let fan = 0;
   let connectorArea = 0;
   let inputMissing: Appliance | null = null;
+  let connectorUnknown: Appliance | null = null;
   for (const a of inSpace) {
     if (a.draft === "direct_vent") continue;
     roomAir.push(a);
@@ -105,6 +108,7 @@ export function airContext(
     else other += a.inputBtuh;
     const d = connectorDiameterIn?.[a.id] ?? a.outletDiameterIn;
     if (typeof d === "number") connectorArea += circleAreaSqIn(d);
+    else connectorUnknown ??= a;
   }
   const applianceRoom = (space.applianceRoomId ? space.rooms.find((r) => r.id === space.applianceRoomId) : space.rooms[0]) ?? null;
   return {
@@ -118,5 +122,6 @@ export function airContext(
     totalInputBtuh: other + fan,
     applianceRoom,
     connectorAreaSumSqIn: connectorArea,
+    connectorUnknown,
   };
 }

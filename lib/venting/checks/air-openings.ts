@@ -39,6 +39,13 @@ function openingTarget(ctx: AirContext, o: AirOpening, field: string | null): Fi
   return target("airSpace", o.id, field, field === null ? `airSpace.openings.${i}` : `airSpace.openings.${i}.${field}`);
 }
 
+/** Gross opening for a free area, or null when the share is too small to give one (a share near 0). */
+function grossFor(freeSqIn: number, share: number): number | null {
+  if (!(share > 0)) return null;
+  const g = grossAreaSqIn(freeSqIn, share);
+  return Number.isFinite(g) ? g : null;
+}
+
 function checkOne(
   ctx: AirContext,
   o: AirOpening,
@@ -55,7 +62,7 @@ function checkOne(
     sizing.push({ openingId: o.id, requiredFreeAreaSqIn: requiredSqIn, requiredGrossAreaSqIn: null, freeAreaSqIn: null });
     return false;
   }
-  const gross = area.share > 0 ? grossAreaSqIn(requiredSqIn, area.share) : null;
+  const gross = grossFor(requiredSqIn, area.share);
   sizing.push({ openingId: o.id, requiredFreeAreaSqIn: requiredSqIn, requiredGrossAreaSqIn: gross, freeAreaSqIn: area.freeSqIn });
   const ok = atLeast(area.freeSqIn, requiredSqIn);
   const citation = area.shareRule ? `${rule.citation}; ${area.shareRule.citation}` : rule.citation;
@@ -140,7 +147,7 @@ export function checkIndoorOpenings(ctx: AirContext, out: Finding[], sizing: Ope
           const ok = atLeast(total, req);
           for (const o of diffList) {
             const a = openingArea(o, ctx.rb);
-            sizing.push({ openingId: o.id, requiredFreeAreaSqIn: req, requiredGrossAreaSqIn: a.ok && a.share > 0 ? req / a.share : null, freeAreaSqIn: a.ok ? a.freeSqIn : null });
+            sizing.push({ openingId: o.id, requiredFreeAreaSqIn: req, requiredGrossAreaSqIn: a.ok ? grossFor(req, a.share) : null, freeAreaSqIn: a.ok ? a.freeSqIn : null });
           }
           out.push(
             finding(
@@ -203,6 +210,20 @@ export function checkOutdoorOpenings(
     }
     const reduced = factor < 1 && combo ? { citation: `${p.citation}; ${combo.citation}`, ref: p.ref } : p;
     let req: number;
+    if (o.kind === "outdoor_single_high" && ctx.connectorUnknown) {
+      // Without every connector's diameter the connector-area floor cannot be checked: only an
+      // opening already too small for the input can be judged; anything else needs the diameter.
+      const byInput = outdoorOpeningAreaSqIn(ctx.totalInputBtuh, p.value) * factor;
+      const area = openingArea(o, ctx.rb);
+      if (area.ok && !atLeast(area.freeSqIn, byInput)) {
+        checkOne(ctx, o, byInput, reduced, out, sizing);
+      } else {
+        const a = ctx.connectorUnknown;
+        out.push(finding(CODE, "needs-info", MESSAGES.airOpenings.needsConnector(a.label || a.id), openingTarget(ctx, o, null), reduced));
+        sizing.push({ openingId: o.id, requiredFreeAreaSqIn: null, requiredGrossAreaSqIn: null, freeAreaSqIn: area.ok ? area.freeSqIn : null });
+      }
+      continue;
+    }
     if (o.kind === "outdoor_single_high") {
       // The connector-area floor is not reduced by the indoor share.
       req = Math.max(outdoorOpeningAreaSqIn(ctx.totalInputBtuh, p.value) * factor, singleOpeningAreaSqIn(0, p.value, ctx.connectorAreaSumSqIn));

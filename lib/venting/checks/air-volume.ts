@@ -39,7 +39,7 @@ export function checkAirVolume(ctx: AirContext, countedRoomIds: ReadonlySet<stri
   const c15 = param(ctx.rb, "infiltration_constant_fan_cuft");
   const thr = param(ctx.rb, "infiltration_ach_threshold");
   const max = param(ctx.rb, "infiltration_ach_max");
-  if (ach !== null && (!c21 || !c15 || !thr || !max)) {
+  if (ach !== null && (!c21 || !c15 || !thr || !max || !(max.value > 0))) {
     out.push(missingRuleFinding(CODE, "the known-infiltration constants and air-change limits", "parameters", target("airSpace", null, "airChangesPerHour", "airSpace.airChangesPerHour")));
     return null;
   }

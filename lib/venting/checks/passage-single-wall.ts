@@ -1,5 +1,5 @@
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
-import { finding, segmentTarget, type VentRunContext } from "./shared";
+import { finding, missingRuleFinding, segmentTarget, type VentRunContext } from "./shared";
 
 const CODE = FINDING_CODES.passageSingleWall;
 
@@ -20,8 +20,14 @@ export function checkPassageSingleWall(ctx: VentRunContext, out: Finding[]): voi
       continue;
     }
     const entry = ctx.rb.passages.get(`${seg.material}|${passage}`);
-    if (!entry || !entry.row.prohibited) {
-      out.push(finding(CODE, "pass", m.pass(seg.material, passage), t, entry ? { citation: entry.row.citation, ref: entry.ref } : null));
+    if (!entry) {
+      // No row is no answer: whether this pipe may go there is not something to assume.
+      const where = passage.replace("_", " ");
+      out.push(missingRuleFinding(CODE, `whether ${seg.material.replace("_", "-")} pipe may pass through ${/^[aeiou]/.test(where) ? "an" : "a"} ${where}`, "prohibitedPassages", t));
+      continue;
+    }
+    if (!entry.row.prohibited) {
+      out.push(finding(CODE, "pass", m.pass(seg.material, passage), t, { citation: entry.row.citation, ref: entry.ref }));
       continue;
     }
     const rule = { citation: entry.row.citation, ref: entry.ref };

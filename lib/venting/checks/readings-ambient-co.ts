@@ -23,9 +23,12 @@ export function checkAmbientCo(ctx: ReadingsContext, out: Finding[]): void {
   const required = { value: max.value, unit: "ppm", comparator: "<" as const };
   if (ppm >= max.value) {
     out.push(finding(CODE, "fail", m.fail(ppm, max.value), t, max, { measured, required, safety: "co" }));
-  } else if (marginal && ppm >= marginal.value) {
+  } else if (!marginal) {
+    // Below the stop level, but whether a caution is due cannot be told without the caution level.
+    out.push(missingRuleFinding(CODE, "the ambient CO caution level", "parameters", t));
+  } else if (ppm >= marginal.value) {
     out.push(finding(CODE, "warn", m.warn(ppm, marginal.value, max.value), t, marginal, { measured, required: { value: marginal.value, unit: "ppm", comparator: "<" }, safety: "co" }));
   } else {
-    out.push(finding(CODE, "pass", m.pass(ppm, marginal?.value ?? max.value), t, marginal ?? max, { measured, required: marginal ? { value: marginal.value, unit: "ppm", comparator: "<" } : required }));
+    out.push(finding(CODE, "pass", m.pass(ppm, marginal.value), t, marginal, { measured, required: { value: marginal.value, unit: "ppm", comparator: "<" } }));
   }
 }

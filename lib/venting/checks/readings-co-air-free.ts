@@ -2,7 +2,7 @@ import { atMost } from "../compare";
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
 import { airFreeCoPpm } from "../sizing/readings";
 import { readingTarget, type ReadingsContext } from "./readings-shared";
-import { finding, known } from "./shared";
+import { finding, known, missingRuleFinding } from "./shared";
 
 const CODE = FINDING_CODES.readingsCoAirFree;
 
@@ -14,7 +14,7 @@ export function checkCoAirFree(ctx: ReadingsContext, out: Finding[]): void {
   const limit = ctx.rb.flueCoLimits.get(kind);
   const t = readingTarget(ctx, "flueCoPpm");
   if (!limit) {
-    out.push(finding(CODE, "needs-info", m.noLimit(kind), t, null));
+    out.push(missingRuleFinding(CODE, `the flue CO limit for ${kind.replace(/_/g, " ")} appliances`, "flueCoLimits", t));
     return;
   }
   if (!known(r.flueCoPpm) || !known(r.flueO2Pct)) {

@@ -7,8 +7,11 @@ const CODE = FINDING_CODES.readingsDraft;
 
 /** Steady-state draft at least as strong (as negative) as the limit; not for direct-vent appliances. */
 export function checkDraft(ctx: ReadingsContext, out: Finding[]): void {
-  if (ctx.appliance.draft === "direct_vent") return;
   const t = readingTarget(ctx, "draftInWc");
+  if (ctx.appliance.draft === "direct_vent") {
+    out.push(finding(CODE, "not-applicable", MESSAGES.readingsDraft.directVent(), t, null));
+    return;
+  }
   const limit = param(ctx.rb, "draft_max_inwc");
   if (!limit) {
     out.push(missingRuleFinding(CODE, "the draft limit", "parameters", t));

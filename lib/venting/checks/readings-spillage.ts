@@ -8,8 +8,12 @@ const CODE = FINDING_CODES.readingsSpillage;
 /** Spillage at the draft hood stops within the maximum time; only for natural-draft (draft-hood) appliances. */
 export function checkSpillage(ctx: ReadingsContext, out: Finding[]): void {
   const draft = ctx.appliance.draft;
-  if (draft === "direct_vent" || draft === "fan_assisted") return;
   const t = readingTarget(ctx, "spillageSeconds");
+  if (draft === "direct_vent" || draft === "fan_assisted") {
+    const message = draft === "direct_vent" ? MESSAGES.readingsSpillage.directVent() : MESSAGES.readingsSpillage.fanAssisted();
+    out.push(finding(CODE, "not-applicable", message, t, null));
+    return;
+  }
   const max = param(ctx.rb, "spillage_max_seconds");
   if (!max) {
     out.push(missingRuleFinding(CODE, "the longest allowed spillage", "parameters", t));

@@ -7,11 +7,17 @@ import { finding, known } from "./shared";
 const CODE = FINDING_CODES.readingsTemperatureRise;
 const RULE = { citation: "Appliance rating plate (temperature-rise range as entered)", ref: null } as const;
 
-/** Furnaces only: supply − return within the rating-plate range. */
+/** Furnaces only (not applicable to other kinds): supply − return within the rating-plate range. */
 export function checkTemperatureRise(ctx: ReadingsContext, out: Finding[]): void {
-  if (ctx.appliance.kind !== "furnace") return;
   const { r } = ctx;
   const m = MESSAGES.readingsTemperatureRise;
+  const kind = ctx.appliance.kind;
+  if (kind !== "furnace") {
+    const t = readingTarget(ctx, "supplyTempF");
+    if (kind == null) out.push(finding(CODE, "needs-info", m.needsKind(), t, RULE));
+    else out.push(finding(CODE, "not-applicable", m.notFurnace(), t, RULE));
+    return;
+  }
   if (!known(r.supplyTempF) || !known(r.returnTempF) || !known(r.nameplateRiseMinF) || !known(r.nameplateRiseMaxF)) {
     const field = !known(r.supplyTempF) ? "supplyTempF" : !known(r.returnTempF) ? "returnTempF" : !known(r.nameplateRiseMinF) ? "nameplateRiseMinF" : "nameplateRiseMaxF";
     out.push(finding(CODE, "needs-info", m.needsInfo(), readingTarget(ctx, field), RULE));

@@ -15,7 +15,8 @@ export function checkSupportsSpacing(ctx: VentRunContext, out: Finding[]): void 
       continue;
     }
     const row = ctx.rb.supportSpacing.get(`${seg.material}|${seg.orientation}`);
-    if (!row) {
+    if (!row || !(row.value > 0)) {
+      // A spacing of zero would ask for endless supports: it is no usable value.
       out.push(missingRuleFinding(CODE, `the support spacing of ${seg.orientation} ${seg.material.replace("_", "-")} pipe`, "supportSpacing", t));
       continue;
     }

@@ -1,6 +1,6 @@
 import { atLeast } from "../compare";
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
-import { finding, known, target, type VentRunContext } from "./shared";
+import { finding, known, missingRuleFinding, target, type VentRunContext } from "./shared";
 
 const CODE = FINDING_CODES.terminationDistance;
 const OPENING_NAMES = {
@@ -10,7 +10,11 @@ const OPENING_NAMES = {
   mechanical_inlet: "mechanical air inlet",
 } as const;
 
-/** The termination is at least the minimum distance from each listed opening, or high enough above it. */
+/**
+ * The termination is at least the minimum distance from each listed opening, or high enough
+ * above it. An opening whose rows are all for another vent system is not applicable; one with no
+ * row at all is not checked.
+ */
 export function checkTerminationDistance(ctx: VentRunContext, out: Finding[]): void {
   const term = ctx.run.termination;
   if (!term) return;
@@ -21,13 +25,22 @@ export function checkTerminationDistance(ctx: VentRunContext, out: Finding[]): v
     const what = OPENING_NAMES[o.kind];
     const base = `ventRun.termination.nearbyOpenings.${i}`;
     let entry = null;
+    const otherSystems: string[] = [];
     for (const r of ctx.rb.terminationDistances) {
-      if (r.row.opening === o.kind && (r.row.ventSystem === "any" || r.row.ventSystem === ctx.ventSystem)) {
+      if (r.row.opening !== o.kind) continue;
+      if (r.row.ventSystem === "any" || r.row.ventSystem === ctx.ventSystem) {
         entry = r;
         break;
       }
+      if (!otherSystems.includes(r.row.ventSystem)) otherSystems.push(r.row.ventSystem);
     }
-    if (!entry) continue; // the rulebook sets no distance for this opening and vent system
+    if (!entry) {
+      const t = target("ventRun", o.id, "distanceFt", `${base}.distanceFt`);
+      // Rows for this opening that are all for another vent system: the rule exists and does not apply here.
+      if (otherSystems.length > 0) out.push(finding(CODE, "not-applicable", m.otherSystem(what, otherSystems, ctx.ventSystem), t, null));
+      else out.push(missingRuleFinding(CODE, `the distance from a termination to ${/^[aeiou]/.test(what) ? "an" : "a"} ${what}`, "terminationDistances", t));
+      continue;
+    }
     const rule = { citation: entry.row.citation, ref: entry.ref };
     const min = entry.row.minDistanceFt;
     const above = entry.row.orAboveFt;

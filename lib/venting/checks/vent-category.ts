@@ -1,4 +1,4 @@
-import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
+import { FINDING_CATALOGUE, FINDING_CODES, MESSAGES, type Finding, type FindingCode } from "../findings";
 import type { Appliance } from "../inputs";
 import { applianceCategory, finding, target } from "./shared";
 
@@ -8,6 +8,30 @@ const RULE = { citation: "Category I venting rules; other categories: appliance 
 function describe(a: Appliance): string {
   if (a.draft === "direct_vent") return "direct-vent (sealed combustion)";
   return `Category ${a.category ?? "?"}`;
+}
+
+/** The Category I checks that are skipped for another category, each with the field it concerns. */
+const CATEGORY_I_CHECKS: readonly { code: FindingCode; field: string; path: string; commonOnly?: true }[] = [
+  { code: FINDING_CODES.connectorSlope, field: "segments", path: "ventRun.segments" },
+  { code: FINDING_CODES.connectorHorizontalLength, field: "segments", path: "ventRun.segments" },
+  { code: FINDING_CODES.connectorLengthPerDiameter, field: "segments", path: "ventRun.segments", commonOnly: true },
+  { code: FINDING_CODES.ventCapacity, field: "diameterIn", path: "ventRun.vent.diameterIn" },
+  { code: FINDING_CODES.ventMinHeight, field: "heightFt", path: "ventRun.vent.heightFt" },
+  { code: FINDING_CODES.terminationHeight, field: "heightAboveRoofFt", path: "ventRun.termination.heightAboveRoofFt" },
+];
+
+/**
+ * When a served appliance is not Category I, says for each Category I check that it does not
+ * apply and why, instead of leaving it out silently.
+ */
+export function reportSkippedCategoryIChecks(served: readonly Appliance[], isCommon: boolean, out: Finding[]): void {
+  const other = served.find((a) => applianceCategory(a) === "other");
+  if (!other) return;
+  const label = other.label || other.id;
+  for (const c of CATEGORY_I_CHECKS) {
+    if (c.commonOnly && !isCommon) continue;
+    out.push(finding(c.code, "not-applicable", MESSAGES.ventCategory.skipped(FINDING_CATALOGUE[c.code].title, label, describe(other)), target("ventRun", null, c.field, c.path), RULE));
+  }
 }
 
 /**

@@ -47,7 +47,7 @@ afterAll(() => {
 describe("renderRecordPdf: what the record says", () => {
   test("the fixture is realistic: real engine findings of every status the example gives", () => {
     expect(short.findings.length).toBeGreaterThan(30);
-    expect(new Set(short.findings.map((f) => f.status))).toEqual(new Set(["pass", "fail", "needs-info"]));
+    expect(new Set(short.findings.map((f) => f.status))).toEqual(new Set(["pass", "fail", "needs-info", "not-applicable"]));
     expect(long.data.ventRun?.segments).toHaveLength(30);
     expect(long.photos).toHaveLength(20);
     expect(long.job.siteAddress.length).toBeGreaterThanOrEqual(300);

@@ -10,6 +10,7 @@ import {
   type SiteCheckAppliesTo,
 } from "@/lib/site-checks";
 import * as defaultsModule from "@/lib/site-checks/defaults";
+import { summarizeFindings, type Finding } from "@/lib/venting";
 
 const item = (key: string, appliesTo: SiteCheckAppliesTo = "all") => ({ key, label: `Item ${key}`, help: "", appliesTo });
 
@@ -36,7 +37,7 @@ describe("default site-check items", () => {
 describe("siteCheckFindings", () => {
   it.each([
     ["yes", "pass", /^Confirmed on site/],
-    ["na", "pass", /not applicable/],
+    ["na", "not-applicable", /not applicable/],
     ["no", "fail", /before leaving the job/],
     [null, "needs-info", /^Confirm on site/],
   ] as const)("answer %s → %s", (answer, status, message) => {
@@ -48,6 +49,17 @@ describe("siteCheckFindings", () => {
       target: { section: "siteChecks", itemId: "vent_cap_clear", field: "answer", path: "siteChecks.vent_cap_clear" },
     });
     expect(finding!.message).toMatch(message);
+  });
+
+  it("counts a not-applicable answer as not applicable, never as a pass, and raises no caution", () => {
+    const co = DEFAULT_SITE_CHECK_ITEMS.find((i) => i.key === "co_alarm_working")!;
+    const findings = siteCheckFindings([item("a"), co], { a: { answer: "yes", note: "" }, co_alarm_working: { answer: "na", note: "no sleeping rooms" } });
+    expect(findings.map((f) => f.status)).toEqual(["pass", "not-applicable"]);
+    expect(findings[1]!.safety).toBeNull();
+    expect(findings[1]!.message).toContain("Note: no sleeping rooms");
+    const summary = summarizeFindings(findings as unknown as Finding[]);
+    expect(summary.counts).toEqual({ pass: 1, "not-applicable": 1, warn: 0, "needs-info": 0, fail: 0 });
+    expect(summary.worst).toBe("pass");
   });
 
   it("treats a missing answer as needs-info, never as a pass", () => {

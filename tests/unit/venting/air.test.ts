@@ -193,6 +193,49 @@ describe("air.openings", () => {
     expect(f.status).toBe("pass");
   });
 
+  // IFGC 304.6.2 (REFERENCE.md C8, found / memory): one high outdoor opening ≥ 1 in² per 3,000 Btu/h
+  // AND ≥ the sum of the connector areas in the space. Without a connector diameter the second
+  // half cannot be checked: a 100 in² opening for 30,000 Btu/h (10 in² by input) is not a pass.
+  test("single high opening with an unknown connector diameter needs it, naming what to enter", () => {
+    const r = evaluateCombustionAir(
+      space({ rooms: [{ id: "c", volumeCuFt: 1 }], openings: [{ id: "s", kind: "outdoor_single_high", widthIn: 10, heightIn: 10 }] }),
+      [waterHeater({ inputBtuh: 30_000, outletDiameterIn: null })],
+      RB,
+    );
+    const f = only(r.findings, "air.openings");
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toMatch(/^Enter the connector diameter of Water heater \(or its outlet diameter\)/);
+    expect(f.target.path).toBe("airSpace.openings.0");
+    expect(f.citation).toContain("304.6.2");
+    expect(r.sizing.openings[0]).toMatchObject({ openingId: "s", requiredFreeAreaSqIn: null, freeAreaSqIn: 100 });
+  });
+
+  test("single high opening too small for the input alone fails even without the connector diameter", () => {
+    // 30,000 / 3,000 = 10 in² by input (C8), less the 1 ft³ of the 1,500 ft³ the closet holds
+    // (C9 combination: × (1 − 1/1,500)); 3 × 3 = 9 in² given.
+    const r = evaluateCombustionAir(
+      space({ rooms: [{ id: "c", volumeCuFt: 1 }], openings: [{ id: "s", kind: "outdoor_single_high", widthIn: 3, heightIn: 3 }] }),
+      [waterHeater({ inputBtuh: 30_000, outletDiameterIn: null })],
+      RB,
+    );
+    const f = only(r.findings, "air.openings");
+    expect(f.status).toBe("fail");
+    expect(f.required?.value).toBeCloseTo(10 * (1 - 1 / 1500), 9);
+  });
+
+  test("the connector diameter from the vent run stands in for an unknown outlet", () => {
+    // An 8 in connector is 50.27 in² (C8 floor), above 30,000 / 3,000 = 10 in².
+    const r = evaluateCombustionAir(
+      space({ rooms: [{ id: "c", volumeCuFt: 1 }], openings: [{ id: "s", kind: "outdoor_single_high", diameterIn: 8 }] }),
+      [waterHeater({ inputBtuh: 30_000, outletDiameterIn: null })],
+      RB,
+      { connectorDiameterIn: { wh: 8 } },
+    );
+    const f = only(r.findings, "air.openings");
+    expect(f.status).toBe("pass");
+    expect(f.required?.value).toBeCloseTo((Math.PI * 64) / 4, 9);
+  });
+
   test("a louver of unknown share needs the maker's figure", () => {
     const r = evaluateCombustionAir(space({ rooms: bigRoom, openings: [{ id: "s", kind: "outdoor_single_high", widthIn: 10, heightIn: 10, louver: "other" }] }), [appliance], RB);
     const f = only(r.findings, "air.openings");

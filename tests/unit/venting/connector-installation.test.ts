@@ -1,5 +1,6 @@
 import { describe, expect, test } from "vitest";
-import { evaluateVentRun, supportsNeeded } from "@/lib/venting";
+import { STARTER_RULEBOOK } from "@/db/seeds/data/starter-rulebook";
+import { evaluateVentRun, prepareRulebook, supportsNeeded } from "@/lib/venting";
 import { RB, furnace, goodRun, only, runWithSegment, withCode } from "@/tests/fixtures/venting/rulebook";
 
 const seg = (findings: ReturnType<typeof evaluateVentRun>["findings"], code: string, id: string) =>
@@ -106,7 +107,8 @@ describe("passage.single_wall", () => {
     { material: "single_wall", passesThrough: "floor", status: "fail" },
     { material: "single_wall", passesThrough: "ceiling", status: "fail" },
     { material: "single_wall", passesThrough: "none", status: "pass" },
-    { material: "type_b", passesThrough: "attic", status: "pass" },
+    { material: "type_b", passesThrough: "attic", status: "pass" }, // A10: Type B is what attics call for
+    { material: "type_b", passesThrough: "wall", status: "pass" },
     { material: "single_wall", passesThrough: "wall", thimble: true, status: "pass" },
     { material: "single_wall", passesThrough: "wall", thimble: false, status: "fail" },
     { material: "single_wall", passesThrough: "wall", thimble: null, status: "needs-info" },
@@ -115,5 +117,13 @@ describe("passage.single_wall", () => {
     const f = seg(evaluateVentRun(runWithSegment(1, { material, passesThrough, thimble }), [furnace()], RB).findings, "passage.single_wall", "s-run");
     expect(f.status).toBe(status);
     if (status === "fail") expect(f.safety).toBe("concealed_single_wall");
+  });
+
+  test("a passage the rulebook has no row for is not checked, never a pass", () => {
+    const content = { ...STARTER_RULEBOOK, prohibitedPassages: STARTER_RULEBOOK.prohibitedPassages.filter((r) => !(r.material === "type_b" && r.passage === "attic")) };
+    const f = seg(evaluateVentRun(runWithSegment(1, { material: "type_b", passesThrough: "attic" }), [furnace()], prepareRulebook(content)).findings, "passage.single_wall", "s-run");
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toMatch(/^Not checked: the rulebook has no value for whether type-b pipe may pass through an attic; add it to the "/);
+    expect(f.citation).toBeNull();
   });
 });

@@ -112,6 +112,6 @@ describe("docs/engine.md worked example", () => {
     const input = checkInputSchema.parse(JSON.parse(readFileSync("docs/examples/check-request.json", "utf8")));
     const r = evaluateInspection(input, prepareRulebook(STARTER_RULEBOOK));
     expect(documented).toEqual(r.findings.map((f) => ({ status: f.status, code: f.code, path: f.target.path, message: f.message })));
-    expect(r.summary.counts).toEqual({ pass: 21, warn: 0, "needs-info": 0, fail: 6 });
+    expect(r.summary.counts).toEqual({ pass: 22, "not-applicable": 1, warn: 0, "needs-info": 0, fail: 6 });
   });
 });

@@ -18,7 +18,7 @@ import { RB, furnace, runWithSegment } from "@/tests/fixtures/venting/rulebook";
 const FACTORS = { perKbtuhCuFt: 50, otherConstant: 21, fanConstant: 15, achThreshold: 0.4, achMax: 0.6 };
 const input = fc.integer({ min: 0, max: 1_000_000 });
 const ach = fc.option(fc.double({ min: 0.05, max: 2, noNaN: true }), { nil: null });
-const RANK = { pass: 0, warn: 1, "needs-info": 2, fail: 3 } as const;
+const RANK = { "not-applicable": 0, pass: 0, warn: 1, "needs-info": 2, fail: 3 } as const;
 const worstOf = (fs: Finding[], code: string) => Math.max(-1, ...fs.filter((f) => f.code === code).map((f) => RANK[f.status]));
 
 describe("more input never needs less air or opening area", () => {

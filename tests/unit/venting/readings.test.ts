@@ -74,10 +74,18 @@ describe("readings.draft and readings.spillage", () => {
     expect(only(evaluateReadings(readings({ applianceId: wh.id, spillageSeconds: s }), wh, RB), "readings.spillage").status).toBe(status);
   });
 
-  test("no spillage test for fan-assisted; no draft or spillage for direct-vent", () => {
-    expect(withCode(evaluateReadings(readings({}), furnace(), RB), "readings.spillage")).toHaveLength(0);
-    const dv = evaluateReadings(readings({}), furnace({ draft: "direct_vent" }), RB);
-    expect(withCode(dv, "readings.draft")).toHaveLength(0);
+  // The spillage test is made at a draft hood (REFERENCE.md D4, found): a fan-assisted appliance
+  // has none; a direct-vent appliance has neither a draft hood nor a draft to read (C12, found).
+  test("spillage is not applicable to fan-assisted; draft and spillage are not applicable to direct-vent", () => {
+    const fan = only(evaluateReadings(readings({ spillageSeconds: 500 }), furnace(), RB), "readings.spillage");
+    expect(fan.status).toBe("not-applicable");
+    expect(fan.message).toMatch(/^Not applicable: a fan-assisted appliance has no draft hood/);
+    const dv = evaluateReadings(readings({ draftInWc: 0.5, spillageSeconds: 500 }), furnace({ draft: "direct_vent" }), RB);
+    expect(only(dv, "readings.draft").status).toBe("not-applicable");
+    expect(only(dv, "readings.spillage").status).toBe("not-applicable");
+    expect(only(dv, "readings.spillage").message).toMatch(/direct-vent/);
+    // A natural-draft appliance is still tested.
+    expect(only(evaluateReadings(readings({ spillageSeconds: 500 }), furnace({ draft: "natural" }), RB), "readings.spillage").status).toBe("fail");
   });
 });
 
@@ -93,9 +101,14 @@ describe("readings.temperature_rise", () => {
     expect(f.status).toBe(status);
     expect(f.measured?.value).toBe(supply - ret);
   });
-  test("missing plate range is needs-info; water heaters are not checked", () => {
+  test("missing plate range is needs-info; a water heater's is not applicable; an unknown kind needs the kind", () => {
     expect(only(evaluateReadings(readings({ supplyTempF: 120, returnTempF: 70 }), furnace(), RB), "readings.temperature_rise").status).toBe("needs-info");
-    expect(withCode(evaluateReadings(readings({ applianceId: "wh" }), waterHeater(), RB), "readings.temperature_rise")).toHaveLength(0);
+    const wh = only(evaluateReadings(readings({ applianceId: "wh", supplyTempF: 200, returnTempF: 70 }), waterHeater(), RB), "readings.temperature_rise");
+    expect(wh.status).toBe("not-applicable");
+    expect(wh.message).toMatch(/^Not applicable: .*furnaces/);
+    const unknown = only(evaluateReadings(readings({ supplyTempF: 120, returnTempF: 70 }), furnace({ kind: null }), RB), "readings.temperature_rise");
+    expect(unknown.status).toBe("needs-info");
+    expect(unknown.message).toMatch(/appliance kind/);
   });
   test("airflow from output and rise", () => {
     // D7: cfm = output / (1.08 × ΔT)

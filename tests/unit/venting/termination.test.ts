@@ -1,5 +1,6 @@
 import { describe, expect, test } from "vitest";
-import { evaluateVentRun, terminationHeightRow, ventRunSchema } from "@/lib/venting";
+import { STARTER_RULEBOOK } from "@/db/seeds/data/starter-rulebook";
+import { evaluateVentRun, prepareRulebook, terminationHeightRow, ventRunSchema } from "@/lib/venting";
 import { RB, furnace, goodRun, only, withCode } from "@/tests/fixtures/venting/rulebook";
 import { B1_ROWS } from "@/tests/fixtures/venting/termination-heights";
 
@@ -70,9 +71,22 @@ describe("termination.distance", () => {
     expect(f.target.itemId).toBe("o1");
   });
 
-  test("rows for mechanical draft do not apply to a natural-draft vent", () => {
+  // IFGC 503.8 / IRC G2427.8 (REFERENCE.md B5, found) are mechanical-draft rules: a natural-draft
+  // vent 1 ft from a door is not judged by them, and the finding says so instead of staying silent.
+  test("rows for mechanical draft are not applicable to a natural-draft vent, with the reason", () => {
     const findings = withTermination({ heightAboveRoofFt: 2, roofPitchPer12: 4, nearbyOpenings: [{ id: "o1", kind: "door", distanceFt: 1 }] });
-    expect(withCode(findings, "termination.distance")).toHaveLength(0);
+    const f = only(findings, "termination.distance");
+    expect(f.status).toBe("not-applicable");
+    expect(f.message).toBe("Not applicable: the rulebook's distances from a door are for mechanical-draft vents, and this vent is natural-draft.");
+    expect(f.target.path).toBe("ventRun.termination.nearbyOpenings.0.distanceFt");
+  });
+
+  test("an opening with no row for any vent system is not checked", () => {
+    const content = { ...STARTER_RULEBOOK, terminationDistances: STARTER_RULEBOOK.terminationDistances.filter((r) => r.opening !== "operable_window") };
+    const run = ventRunSchema.parse({ ...goodRun(), termination: { listedCap: true, capSizeIn: 4, distanceToVerticalWallFt: 10, heightAboveRoofFt: 2, roofPitchPer12: 4, nearbyOpenings: [{ id: "o1", kind: "operable_window", distanceFt: 1 }] } });
+    const f = only(evaluateVentRun(run, [furnace({ category: "IV", draft: "fan_assisted" })], prepareRulebook(content)).findings, "termination.distance");
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toMatch(/^Not checked: the rulebook has no value for the distance from a termination to an operable window/);
   });
 });
 
@@ -90,9 +104,22 @@ describe("vent.min_height and vent.category", () => {
   test("a Category IV appliance skips the Category I checks with a caution", () => {
     const findings = evaluateVentRun(goodRun(), [furnace({ category: "IV" })], RB).findings;
     expect(only(findings, "vent.category").status).toBe("warn");
-    expect(withCode(findings, "vent.capacity")).toHaveLength(0);
-    expect(withCode(findings, "connector.slope")).toHaveLength(0);
+    // Each skipped Category I check says it does not apply, and why; none passes or fails.
+    for (const code of ["connector.slope", "connector.horizontal_length", "vent.capacity", "vent.min_height", "termination.height"]) {
+      const f = only(findings, code);
+      expect(f.status).toBe("not-applicable");
+      expect(f.message).toMatch(/^Not applicable: ".+" is a Category I rule and Furnace is Category IV; the manufacturer's instructions govern/);
+    }
+    // Connector length per diameter is a common-vent rule: on a single vent it is not listed at all.
+    expect(withCode(findings, "connector.length_per_diameter")).toHaveLength(0);
     expect(withCode(findings, "clearance.combustibles").length).toBeGreaterThan(0);
+  });
+
+  test("a direct-vent appliance on the run skips the Category I checks as not applicable", () => {
+    const run = ventRunSchema.parse({ ...goodRun(), applianceIds: ["f1"] });
+    const findings = evaluateVentRun(run, [furnace({ id: "f1", draft: "direct_vent", category: null })], RB).findings;
+    expect(only(findings, "vent.capacity").status).toBe("not-applicable");
+    expect(only(findings, "vent.capacity").message).toContain("direct-vent (sealed combustion)");
   });
 
   test("unknown category and draft is needs-info but the checks still run", () => {

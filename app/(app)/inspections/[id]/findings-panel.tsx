@@ -12,6 +12,9 @@ function Counts({ summary }: { summary: FindingSummary }) {
     { n: summary.counts["needs-info"], label: "needs info", cls: "text-info" },
     { n: summary.counts.warn, label: "warning", cls: "text-warn" },
     { n: summary.counts.pass, label: "pass", cls: "text-pass" },
+    // Shown only when there are any, to keep the phone's findings bar on one line; stored
+    // summaries from before the status existed have no count for it.
+    ...(summary.counts["not-applicable"] ? [{ n: summary.counts["not-applicable"], label: "not applicable", cls: "text-na" }] : []),
   ];
   return (
     <p className="flex flex-wrap gap-x-3 text-sm font-semibold" data-testid="findings-counts">
@@ -37,11 +40,11 @@ export function FindingsPanel({ findings, summary, rulebookLabel }: { findings: 
   };
   const list = (
     <>
-      <div className="flex items-center justify-between gap-2">
+      <div className="flex flex-wrap items-center justify-between gap-2">
         <Counts summary={summary} />
         <label className="flex items-center gap-1 text-xs text-ink-600">
           <input type="checkbox" className="accent-copper-600" checked={showPasses} onChange={(e) => setShowPasses(e.target.checked)} />
-          Show passes
+          Show passes and not applicable
         </label>
       </div>
       <p className="text-xs text-ink-500">Checked against {rulebookLabel}. Findings report the rulebook; local code and the manufacturer&apos;s instructions govern.</p>

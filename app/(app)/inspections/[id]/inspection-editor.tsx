@@ -3,11 +3,13 @@
 import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
-import { useForm, useWatch } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { SafetyNotice } from "@/components/safety-notice";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { useAutosave, readLocalDraft, type SaveStatus } from "@/components/inspection/use-autosave";
+import { focusPath } from "@/components/inspection/field-id";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { inspectionDataSchema, type InspectionData } from "@/lib/inspections/data";
 import { evaluateInspectionData, type InspectionFinding } from "@/lib/inspections/evaluate";
@@ -92,7 +94,14 @@ export function InspectionEditor(props: EditorProps) {
   const router = useRouter();
   const prepared = useMemo(() => prepareRulebook(props.rulebookContent), [props.rulebookContent]);
   const [restoredLocal, setRestoredLocal] = useState(false);
-  const form = useForm<InspectionFormValues>({ defaultValues: toFormValues(props.data) });
+  // The same schema as the server's: a value out of its range gets its message beside the field
+  // as it is typed (the form's shape is the stored data's, so the paths match). Only the errors
+  // are used: the values are read with toData, never through handleSubmit.
+  const form = useForm<InspectionFormValues>({
+    defaultValues: toFormValues(props.data),
+    resolver: zodResolver(inspectionDataSchema) as unknown as Resolver<InspectionFormValues>,
+    mode: "onChange",
+  });
   const { control, getValues, setValue, reset } = form;
   const autosave = useAutosave({ inspectionId: props.inspectionId, initialVersion: props.version, enabled: props.editable });
   const { schedule } = autosave;
@@ -130,7 +139,10 @@ export function InspectionEditor(props: EditorProps) {
   }, [evaluation]);
   const shown = evaluation ?? lastGood;
 
-  // Every change is kept on the device at once and sent to the server after a pause.
+  // Every change is kept on the device at once and sent to the server after a pause; a value
+  // out of range holds the save back until it is fixed, and says so.
+  const current = useMemo(() => inspectionDataSchema.safeParse(toData(values)), [values]);
+  const invalid = current.success ? null : (current.error.issues[0] ?? null);
   const first = useRef(true);
   useEffect(() => {
     if (first.current) {
@@ -138,9 +150,8 @@ export function InspectionEditor(props: EditorProps) {
       return;
     }
     if (!props.editable) return;
-    const parsed = inspectionDataSchema.safeParse(toData(values));
-    if (parsed.success) schedule(parsed.data);
-  }, [values, props.editable, schedule]);
+    if (current.success) schedule(current.data);
+  }, [current, props.editable, schedule]);
 
   const submit = async (signature: { typedName: string; signaturePng: string }) => {
     setSubmitting(true);
@@ -172,6 +183,14 @@ export function InspectionEditor(props: EditorProps) {
           {props.editable ? <SaveIndicator status={autosave.status} onRetry={() => void autosave.flush()} /> : null}
           {restoredLocal ? <span className="rounded-full bg-info-soft px-3 py-1 text-xs font-semibold text-info">Restored unsaved entries from this device</span> : null}
         </div>
+        {props.editable && invalid ? (
+          <p role="alert" className="rounded-md border border-fail/40 bg-fail-soft px-3 py-2 text-sm text-fail" data-testid="invalid-entry">
+            Not saved until this is fixed: {invalid.message}{" "}
+            <button type="button" className="font-semibold underline" onClick={() => focusPath(invalid.path.map(String).join("."))}>
+              Show the field
+            </button>
+          </p>
+        ) : null}
         {autosave.status.kind === "conflict" ? (
           <div role="alert" className="space-y-2 rounded-md border border-fail/40 bg-fail-soft p-3 text-sm">
             <p className="font-semibold text-fail">{autosave.status.message}</p>

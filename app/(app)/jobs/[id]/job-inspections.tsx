@@ -59,7 +59,7 @@ export function JobInspections({ jobId, inspections, canStart }: { jobId: number
                 <InspectionStatusBadge status={i.status} />
                 <span className="w-full text-xs text-ink-500">
                   {i.installerName ?? "—"} · updated {i.updatedAt.slice(0, 16).replace("T", " ")} UTC
-                  {i.summary ? ` · ${i.summary.counts.fail ?? 0} fail, ${i.summary.counts["needs-info"] ?? 0} needs info, ${i.summary.counts.pass ?? 0} pass` : ""}
+                  {i.summary ? ` · ${i.summary.counts.fail ?? 0} fail, ${i.summary.counts["needs-info"] ?? 0} needs info, ${i.summary.counts.pass ?? 0} pass${i.summary.counts["not-applicable"] ? `, ${i.summary.counts["not-applicable"]} not applicable` : ""}` : ""}
                 </span>
               </Link>
             </li>

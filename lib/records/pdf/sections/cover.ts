@@ -115,11 +115,11 @@ export function drawCover(ctx: RenderContext): void {
 function drawSummary(ctx: RenderContext): void {
   const { layout, input, fonts } = ctx;
   const page = layout.page;
-  const order = [...FINDING_STATUSES].reverse(); // fail, needs-info, warn, pass
+  const order = [...FINDING_STATUSES].reverse(); // fail, needs-info, warn, not applicable, pass
   drawLine(page, fonts, `Summary of the ${input.summary.total} checks in this record`, layout.left, layout.y - SIZE.subheading, { weight: "bold", size: SIZE.subheading, color: COLOURS.ink });
   layout.y -= leading(SIZE.subheading) + 4;
   const gap = 8;
-  const w = (layout.width - gap * 3) / 4;
+  const w = (layout.width - gap * (order.length - 1)) / order.length;
   const h = 44;
   order.forEach((status, i) => {
     const x = layout.left + i * (w + gap);
@@ -129,7 +129,10 @@ function drawSummary(ctx: RenderContext): void {
     const num = String(count);
     drawLine(page, fonts, num, x + 12, layout.y - 22, { weight: "bold", size: 18, color: STATUS_COLOURS[status] });
     const nx = x + 12 + textWidth(fonts, num, { weight: "bold", size: 18 }) + 8;
-    drawLine(page, fonts, STATUS_WORDS[status], nx, layout.y - 15, { weight: "bold", size: SIZE.small, color: COLOURS.ink });
+    // A long word ("NOT APPLICABLE") shrinks to fit its box rather than run into the next one.
+    let wordSize: number = SIZE.small;
+    while (wordSize > 5 && textWidth(fonts, STATUS_WORDS[status], { weight: "bold", size: wordSize }) > x + w - nx - 4) wordSize -= 0.5;
+    drawLine(page, fonts, STATUS_WORDS[status], nx, layout.y - 15, { weight: "bold", size: wordSize, color: COLOURS.ink });
     const ex: TextStyle = { weight: "regular", size: SIZE.footer, color: COLOURS.muted };
     wrapText(fonts, STATUS_EXPLAINED[status], ex, x + w - nx - 5)
       .slice(0, 2)

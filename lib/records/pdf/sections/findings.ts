@@ -25,8 +25,8 @@ function checkCell(ctx: RenderContext, f: InspectionFinding): Cell {
   blocks.push({ text: where ? `${f.title} · ${where}` : f.title, weight: "bold", color: COLOURS.ink });
   blocks.push({ text: f.message, gapBefore: 1 });
   if (f.smallest) blocks.push({ text: `Smallest that works (company tables): ${withUnit(f.smallest.value, f.smallest.unit)}`, weight: "bold", gapBefore: 1, size: SIZE.small });
-  blocks.push({ text: `Source: ${f.citation ?? "no rulebook value"}`, size: SIZE.footer, color: COLOURS.muted, gapBefore: 1.5 });
-  if (f.safety && f.status !== "pass") blocks.push({ text: SAFETY_WORDS[f.safety], weight: "bold", color: COLOURS.fail, gapBefore: 2 });
+  blocks.push({ text: `Source: ${f.citation ?? (f.status === "not-applicable" ? "none, the rule does not apply" : "no rulebook value")}`, size: SIZE.footer, color: COLOURS.muted, gapBefore: 1.5 });
+  if (f.safety && f.status !== "pass" && f.status !== "not-applicable") blocks.push({ text: SAFETY_WORDS[f.safety], weight: "bold", color: COLOURS.fail, gapBefore: 2 });
   const j = f.status === "fail" || f.status === "needs-info" ? justificationFor(ctx.input, f) : null;
   if (j) {
     const text = j.number !== null ? `Left as found with a written justification: see Justifications, item ${j.number}.` : `Left as found with a written justification: ${j.text}${j.reference ? ` (Reference: ${j.reference})` : ""}`;
