@@ -1,5 +1,5 @@
 /** Review sections, their labels and the queue sorts, without any validation code (see ./inspection). */
-export const REVIEW_SECTIONS = ["general", "appliances", "ventRun", "airSpace", "readings", "siteChecks", "photos", "justifications"] as const;
+export const REVIEW_SECTIONS = ["general", "appliances", "ventRun", "airSpace", "returnAir", "readings", "siteChecks", "photos", "justifications"] as const;
 export type ReviewSection = (typeof REVIEW_SECTIONS)[number];
 
 export const REVIEW_SECTION_LABELS = {
@@ -7,6 +7,7 @@ export const REVIEW_SECTION_LABELS = {
   appliances: "Appliances",
   ventRun: "Vent run",
   airSpace: "Combustion air",
+  returnAir: "Return air",
   readings: "Readings",
   siteChecks: "Site checks",
   photos: "Photos",

@@ -18,7 +18,7 @@ export function checkReturnAirDraftHood(ctx: ReturnAirContext, out: Finding[]): 
   for (const info of ctx.openings) {
     const fuel = fuelApplianceInSpace(info);
     if (fuel === false) {
-      out.push(finding(CODE, "pass", M.noFuelAppliance(info.label), returnOpeningTarget(info, "fuelApplianceInSpace"), { citation: "No fuel-burning appliance in the space (as entered)", ref: null }));
+      out.push(finding(CODE, "not-applicable", M.noFuelAppliance(info.label), returnOpeningTarget(info, "fuelApplianceInSpace"), null));
       continue;
     }
     if (!min) {

@@ -63,6 +63,8 @@ export function drawReturnAir(ctx: RenderContext, number: number): void {
 
   if (ra.openings.length) {
     const bySizing = new Map(sizing.openings.map((o) => [o.openingId, o]));
+    // Openings drawing from different kinds of space are not each the only source (as the check reads it).
+    const kinds = new Set(ra.openings.map((o) => o.space).filter(Boolean)).size;
     const rows: Cell[][] = ra.openings.map((o, i) => {
       const z = bySizing.get(o.id);
       const size =
@@ -85,7 +87,7 @@ export function drawReturnAir(ctx: RenderContext, number: number): void {
         withUnit(z?.airflowCfm, "cfm", 0),
         z?.faceVelocityFpm != null ? `${withUnit(z.faceVelocityFpm, "fpm", 0)}${z.velocityLimitFpm != null ? ` (≤ ${formatNumber(z.velocityLimitFpm, 0)})` : ""}` : "not worked out",
         typeof o.distanceToDraftHoodFt === "number" ? withUnit(o.distanceToDraftHoodFt, "ft", 1) : o.fuelApplianceInSpace === false ? "none in space" : "not entered",
-        yesNo(o.soleReturnSource),
+        o.soleReturnSource == null && kinds > 1 ? "No (other returns)" : yesNo(o.soleReturnSource),
         worst ? [{ text: STATUS_WORDS[worst.status], badge: STATUS_COLOURS[worst.status], size: SIZE.footer }] : DASH,
       ];
     });
