@@ -174,6 +174,15 @@ function servedApplianceIds(
   return out;
 }
 
+/** "segments 1–3", "segment 4" or "segments 1, 3, 6": the editor's numbering. */
+function segmentList(indices: readonly number[]): string {
+  const ns = indices.map((i) => i + 1);
+  if (ns.length === 1) return `segment ${ns[0]}`;
+  const contiguous = ns.every((n, k) => k === 0 || n === ns[k - 1]! + 1);
+  if (contiguous) return `segments ${ns[0]}–${ns.at(-1)}`;
+  return `segments ${ns.slice(0, 4).join(", ")}${ns.length > 4 ? ` +${ns.length - 4}` : ""}`;
+}
+
 function median(xs: readonly number[]): number | null {
   if (xs.length === 0) return null;
   const s = [...xs].sort((a, b) => a - b);
@@ -288,7 +297,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const noteLines = topNotes(segs, fails, otherApps, appliances, appIds, term, hasVent, m.maxFailLabels);
   const mTop = m.pad + noteLines.length * (m.small * 1.3) + 26;
   const legendH = legendRows.rows.length * 17 + 20;
-  const mBottom = m.hoodH + m.appH + 10 + 2 * m.font * 1.25 + 8 + legendH;
+  // Below the floor: the appliance label (and on a common vent, its connector and a failure).
+  const mBottom = m.hoodH + m.appH + 10 + 2 * m.font * 1.25 + 8 + legendH + (multi ? 2 * m.small * 1.25 : 0);
   const mLeft = m.appW / 2 + m.pad + 6;
   const plotW = Math.max(40, W - mLeft - m.marginRight);
   const plotH = Math.max(40, H - mTop - mBottom);
@@ -444,7 +454,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     {
       const e = extentM();
       const connector = Math.max(e.w, e.h - pipeFt);
-      const cap = Math.max(1.5 * connector, 8, (term ? habFt : 0) + 5);
+      // Tighter than for one connector: two side by side need the room more.
+      const cap = Math.max(connector, 8, (term ? habFt : 0) + 5);
       if (connected.length > 0 && pipeFt > cap * 1.25) ((pipeFt = cap), (ventShortened = true));
     }
     const fixedW = m.appW + 2 * (m.hw + 8) + 2 * m.pad + 12;
@@ -604,7 +615,31 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   };
   segs.forEach((sg, i) => avoidPath(segA[i]!, segB[i]!, hw + 1));
   for (const ch of chains) if (multi && ch.connectorEnd && ch.junction) avoidPath(ch.connectorEnd, ch.junction, hw + 1);
+  /** An appliance on the run with no connector assigned: a dashed stub ending in a cross above the outlet. */
+  function markNoConnector(d: (typeof drawn)[number]): void {
+    const { ch, collar: c, appFail: f, appMeta: meta } = d;
+    const away = ch.side < 0 ? "end" : "start";
+    const missing = (f?.codes as readonly string[] | undefined)?.includes(NO_CONNECTOR_CODE) ?? false;
+    const role: SceneRole = missing ? "connector-fail" : "connector";
+    const top = pt(c.x, c.y - 22);
+    front.push({ kind: "line", role, ...meta, x1: c.x, y1: c.y, x2: top.x, y2: top.y, strokeWidth: 1.6, dash: [3, 3] });
+    for (const k of [-1, 1]) front.push({ kind: "line", role, ...meta, x1: top.x - 5, y1: top.y - 5 * k, x2: top.x + 5, y2: top.y + 5 * k, strokeWidth: 2 });
+    placer.avoid({ x0: top.x - 6, y0: top.y - 6, x1: top.x + 6, y1: c.y });
+    const np = placer.place(
+      [{ text: "no connector", role: missing ? "label-fail" : "note", size: m.small, weight: "bold" }],
+      [
+        { x: c.x, y: top.y - 8, anchor: "middle", v: "bottom" },
+        { x: c.x - ch.side * 10, y: top.y, anchor: ch.side < 0 ? "start" : "end", v: "middle" },
+        { x: c.x + ch.side * 10, y: top.y, anchor: away === "end" ? "end" : "start", v: "middle" },
+      ],
+      meta,
+      true,
+    );
+    if (np) labels.push(...np);
+  }
+
   for (let i = 0; i + 1 < vpts.length; i++) avoidPath(vpts[i]!, vpts[i + 1]!, hw + 1);
+  if (multi) for (const d of drawn) if (d.ch.segIdx.length === 0) markNoConnector(d);
 
   // Vent, roof and termination.
   const ventFail = fails.vent.codes.length > 0;
@@ -874,6 +909,23 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
             { x: a.x, y: Math.max(a.y, b.y) + hw + 5, anchor: "start", v: "top" },
             { x: b.x, y: Math.max(a.y, b.y) + hw + 5, anchor: "end", v: "top" },
           ];
+    if (multi) {
+      // Several connectors crowd the middle: a vertical run on the left of the vent is labelled
+      // on its outer side, and any label may move a little to find room.
+      const ch = chains.find((q) => q.segIdx.includes(sg.index));
+      if (sg.orientation === "vertical" && ch?.side === -1) cands.unshift(cands.splice(1, 1)[0]!);
+      if (sg.orientation === "vertical")
+        cands.push({ x: c.x - hw - 8, y: a.y, anchor: "end", v: "bottom" }, { x: c.x - hw - 8, y: b.y, anchor: "end", v: "top" });
+      // A horizontal label wider than its run keeps to its own side of the vent.
+      if (sg.orientation === "horizontal" && ch && textWidth(main, m.font, true) > Math.abs(b.x - a.x)) {
+        const y = Math.max(a.y, b.y) + hw + 5;
+        cands.unshift(ch.side < 0 ? { x: Math.max(a.x, b.x), y, anchor: "end", v: "top" } : { x: Math.min(a.x, b.x), y, anchor: "start", v: "top" });
+      }
+      const near: LabelCandidate[] = [];
+      const dys = sg.orientation === "vertical" ? [14, -14, 28, -28] : [12, 24];
+      for (const dy of dys) for (const dx of [0, 30, -30]) for (const q of cands.slice(0, 3)) near.push({ ...q, x: q.x + dx, y: q.y + dy });
+      cands.push(...near);
+    }
     const head = lines[0]!;
     const shortFail = failLines(sg.fail, m, 1);
     const placed = placer.place(lines, cands, meta, job.essential, [[head, ...shortFail], [head]]);
@@ -966,51 +1018,22 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       const { ch, collar: c, appFail: f, appMeta: meta, boxL: bl, kindWord: kw, label } = d;
       const inputBtuh = num(ch.app?.inputBtuh);
       const second = [label !== kw ? kw : "", inputBtuh !== null ? `${fmtNum(inputBtuh, 0)} Btu/h` : "input?"].filter(Boolean).join(" · ");
+      const connFail = ch.segIdx.some((i) => segs[i]!.fail);
+      const conn: LabelLine = ch.segIdx.length > 0
+        ? { text: `connector: ${segmentList(ch.segIdx)}`, role: connFail ? "label-fail" : "label-muted", size: m.small }
+        : { text: "connector: none", role: f ? "label-fail" : "label-muted", size: m.small };
       const lines: LabelLine[] = [
         { text: label, role: f ? "label-fail" : "label", size: m.font, weight: "bold" },
         { text: second, role: "label-muted", size: m.small },
+        conn,
         ...failLines(f, m, 1),
       ];
       const outer: LabelCandidate =
         ch.side < 0 ? { x: Math.max(m.pad, bl), y: floorY + 9, anchor: "start", v: "top" } : { x: Math.min(W - m.pad, bl + m.appW), y: floorY + 9, anchor: "end", v: "top" };
-      const placed = placer.place(lines, [outer, { x: c.x, y: floorY + 9, anchor: "middle", v: "top" }], meta, true, [[lines[0]!, lines[1]!], [lines[0]!]]);
+      const placed = placer.place(lines, [outer, { x: c.x, y: floorY + 9, anchor: "middle", v: "top" }], meta, true, [[lines[0]!, lines[1]!, conn], [lines[0]!, conn], [lines[0]!]]);
       if (placed) labels.push(...placed);
       const away = ch.side < 0 ? "end" : "start";
-      if (!ch.connectorEnd || !ch.junction) {
-        // No connector assigned: a dashed stub ending in a cross above the outlet.
-        const missing = (f?.codes as readonly string[] | undefined)?.includes(NO_CONNECTOR_CODE) ?? false;
-        const role: SceneRole = missing ? "connector-fail" : "connector";
-        const top = pt(c.x, c.y - 22);
-        front.push({ kind: "line", role, ...meta, x1: c.x, y1: c.y, x2: top.x, y2: top.y, strokeWidth: 1.6, dash: [3, 3] });
-        for (const k of [-1, 1]) front.push({ kind: "line", role, ...meta, x1: top.x - 5, y1: top.y - 5 * k, x2: top.x + 5, y2: top.y + 5 * k, strokeWidth: 2 });
-        placer.avoid({ x0: top.x - 6, y0: top.y - 6, x1: top.x + 6, y1: c.y });
-        const np = placer.place(
-          [{ text: "no connector", role: missing ? "label-fail" : "note", size: m.small, weight: "bold" }],
-          [
-            { x: c.x, y: top.y - 8, anchor: "middle", v: "bottom" },
-            { x: c.x - ch.side * 10, y: top.y, anchor: ch.side < 0 ? "start" : "end", v: "middle" },
-            { x: c.x + ch.side * 10, y: top.y, anchor: away === "end" ? "end" : "start", v: "middle" },
-          ],
-          meta,
-          true,
-        );
-        if (np) labels.push(...np);
-        continue;
-      }
-      // The connector's name beside its tee, on the appliance's side of the vent.
-      const connFail = ch.segIdx.some((i) => segs[i]!.fail);
-      const name = label.length > 18 ? `${label.slice(0, 17)}…` : label;
-      const j = ch.junction;
-      const cl = placer.place(
-        [{ text: `${name} connector`, role: connFail ? "label-fail" : "label-muted", size: m.small }],
-        [
-          { x: j.x - ch.side * (hw + 8), y: j.y - hw - 7, anchor: away, v: "bottom" },
-          { x: j.x - ch.side * (hw + 8), y: j.y + hw + 6, anchor: away, v: "top" },
-          { x: ch.connectorEnd.x, y: ch.connectorEnd.y - hw - 20, anchor: away, v: "bottom" },
-        ],
-        { partId: ch.partId },
-      );
-      if (cl) labels.push(...cl);
+      if (!ch.connectorEnd || !ch.junction) continue;
       if (!m.compact) {
         const hood = placer.place([{ text: d.natural ? "draft hood" : "flue collar", role: "label-muted", size: m.small - 0.5 }], [
           { x: c.x + ch.side * (hw + 12), y: c.y + m.hoodH / 2, anchor: ch.side < 0 ? "end" : "start", v: "middle" },
