@@ -19,6 +19,7 @@ import {
   len,
   type Box,
 } from "./geometry";
+import { servedApplianceIds } from "./served-appliances";
 import { LabelPlacer, type LabelCandidate, type LabelLine } from "./label-placer";
 import type {
   FailingPart,
@@ -155,25 +156,6 @@ export function waterLevelCap(lengths: readonly number[], reduceBy: number, minC
   return minCap;
 }
 
-/**
- * Ids of the appliances the run serves, as the engine reads it: `ventRun.applianceIds`, else
- * every appliance that is not direct-vent; plus any appliance a segment names. Only appliances
- * that exist are drawn.
- */
-function servedApplianceIds(
-  run: DrawingVentRun,
-  appliances: readonly Partial<Appliance>[],
-  appIds: readonly string[],
-  segments: readonly Partial<ConnectorSegment>[],
-): string[] {
-  const listed = Array.isArray(run.applianceIds)
-    ? run.applianceIds.filter((id): id is string => typeof id === "string")
-    : appIds.filter((_, i) => appliances[i]?.draft !== "direct_vent");
-  const out: string[] = [];
-  for (const id of [...listed, ...segments.map((s) => s.applianceId)]) if (typeof id === "string" && appIds.includes(id) && !out.includes(id)) out.push(id);
-  return out;
-}
-
 /** "segments 1–3", "segment 4" or "segments 1, 3, 6": the editor's numbering. */
 function segmentList(indices: readonly number[]): string {
   const ns = indices.map((i) => i + 1);
@@ -226,7 +208,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const fails = failuresByPart(findings, segIds, appIds);
 
   // Several appliances on the run: each gets its own connector joining a common vent.
-  const served = servedApplianceIds(run, appliances, appIds, rawSegs);
+  const served = servedApplianceIds(run, appliances);
   const multi = served.length > 1;
 
   // The appliance drawn alone: the one the first segment names, else the first the run serves.
