@@ -757,7 +757,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     const a = segA[i]!;
     const b = segB[i]!;
     const u = unit(sub(b, a));
-    const v = leftNormal(u); // up for a horizontal run, left for a vertical one
+    // Up for a horizontal run (on either side of a common vent), left for a vertical one.
+    const v = sg.orientation === "horizontal" && leftNormal(u).y > 0 ? mul(leftNormal(u), -1) : leftNormal(u);
     const failing = !!sg.fail;
     const role: SceneRole = failing ? "connector-fail" : "connector";
     const meta = { partId: sg.id, ...(failing ? { highlight: true, findingCodes: sg.fail!.codes } : {}) };
@@ -901,7 +902,10 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       // A horizontal label wider than its run keeps to its own side of the vent.
       if (sg.orientation === "horizontal" && ch && textWidth(main, m.font, true) > Math.abs(b.x - a.x)) {
         const y = Math.max(a.y, b.y) + hw + 5;
-        cands.unshift(ch.side < 0 ? { x: Math.max(a.x, b.x), y, anchor: "end", v: "top" } : { x: Math.min(a.x, b.x), y, anchor: "start", v: "top" });
+        const above = Math.min(a.y, b.y) - hw - (sg.clearanceIn !== null ? 34 : 20);
+        const x = ch.side < 0 ? Math.max(a.x, b.x) : Math.min(a.x, b.x);
+        const anchor = ch.side < 0 ? "end" : "start";
+        cands.unshift({ x, y, anchor, v: "top" }, { x, y: above, anchor, v: "bottom" });
       }
       const near: LabelCandidate[] = [];
       const dys = sg.orientation === "vertical" ? [14, -14, 28, -28] : [12, 24];
