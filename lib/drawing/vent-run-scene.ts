@@ -494,7 +494,19 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     }
     const leftNeed = Math.max(0, ...places.filter((c) => c.side === -1).map((c) => dist.get(c)!)) + m.appW / 2 + m.pad + 6;
     const rightNeed = Math.max(sm * lateralFt + m.marginRight, ...places.filter((c) => c.side === 1).map((c) => dist.get(c)! + m.appW / 2 + m.pad + 6));
-    const xv = leftNeed + Math.max(0, W - leftNeed - rightNeed) * 0.5;
+    // Spare width goes first where a vertical connector's label needs room beyond its appliance.
+    const labelRoom = (side: number) =>
+      Math.max(
+        0,
+        ...places
+          .filter((c) => c.side === side)
+          .flatMap((c) => c.segIdx.filter((i) => segs[i]!.orientation === "vertical"))
+          .map((i) => textWidth(`${i + 1}: ${fmtNum(segs[i]!.lengthFt ?? 0)} ft up`, m.font, true) + m.hw + 10 - m.appW / 2),
+      );
+    const slack = Math.max(0, W - leftNeed - rightNeed);
+    const wantL = labelRoom(-1);
+    const wantR = labelRoom(1);
+    const xv = leftNeed + (wantL + wantR > slack ? (wantL + wantR > 0 ? (slack * wantL) / (wantL + wantR) : slack / 2) : wantL + (slack - wantL - wantR) / 2);
 
     const segAm: Point[] = segs.map(() => pt(0, 0));
     const segBm: Point[] = segs.map(() => pt(0, 0));
@@ -857,6 +869,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     if (show) segLabelJobs.push({ sg, a, b, essential: failing });
   });
 
+  const deferredTurns: (() => void)[] = [];
   // Segment labels: failing ones first so they get the best places.
   segLabelJobs.sort((x, y) => Number(y.essential) - Number(x.essential));
   for (const job of segLabelJobs) {
@@ -905,7 +918,10 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
         const above = Math.min(a.y, b.y) - hw - (sg.clearanceIn !== null ? 34 : 20);
         const x = ch.side < 0 ? Math.max(a.x, b.x) : Math.min(a.x, b.x);
         const anchor = ch.side < 0 ? "end" : "start";
-        cands.unshift({ x, y, anchor, v: "top" }, { x, y: above, anchor, v: "bottom" });
+        // Beyond the run's outer end, where the connector turns down to its appliance.
+        const outer = ch.side < 0 ? (a.x < b.x ? a : b) : a.x > b.x ? a : b;
+        const beyond: LabelCandidate = { x: outer.x + ch.side * (hw + 12), y: outer.y - hw - 4, anchor, v: "bottom" };
+        cands.unshift({ x, y, anchor, v: "top" }, beyond, { x, y: above, anchor, v: "bottom" });
       }
       const near: LabelCandidate[] = [];
       const dys = sg.orientation === "vertical" ? [14, -14, 28, -28] : [12, 24];
@@ -919,20 +935,25 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       labels.push(...placed);
       labelled.add(sg.index);
     }
-    if (t) {
-      const next = nextDir(sg.index, unit(sub(b, a)));
-      let o = sub(unit(sub(b, a)), next);
-      if (len(o) < 1e-6) o = leftNormal(unit(sub(b, a)));
-      const d = unit(o);
-      const tip = add(b, mul(d, hw + 11));
-      const anchor = d.x < -0.3 ? "end" : d.x > 0.3 ? "start" : "middle";
-      const tl = placer.place([{ text: t, role: "label-muted", size: m.small }], [
-        { x: tip.x, y: tip.y, anchor, v: d.y < -0.3 ? "bottom" : d.y > 0.3 ? "top" : "middle" },
-        { x: b.x + hw + 6, y: b.y + hw + 4, anchor: "start", v: "top" },
-        { x: b.x - hw - 6, y: b.y - hw - 4, anchor: "end", v: "bottom" },
-      ], { partId: sg.id });
-      if (tl) labels.push(...tl);
-    }
+    if (t && multi) deferredTurns.push(() => placeTurn(sg, a, b, t));
+    else if (t) placeTurn(sg, a, b, t);
+  }
+  // On a common vent the connector labels come first; the turn counts take the room left.
+  for (const place of deferredTurns) place();
+
+  function placeTurn(sg: SegModel, a: Point, b: Point, t: string): void {
+    const next = nextDir(sg.index, unit(sub(b, a)));
+    let o = sub(unit(sub(b, a)), next);
+    if (len(o) < 1e-6) o = leftNormal(unit(sub(b, a)));
+    const d = unit(o);
+    const tip = add(b, mul(d, hw + 11));
+    const anchor = d.x < -0.3 ? "end" : d.x > 0.3 ? "start" : "middle";
+    const tl = placer.place([{ text: t, role: "label-muted", size: m.small }], [
+      { x: tip.x, y: tip.y, anchor, v: d.y < -0.3 ? "bottom" : d.y > 0.3 ? "top" : "middle" },
+      { x: b.x + hw + 6, y: b.y + hw + 4, anchor: "start", v: "top" },
+      { x: b.x - hw - 6, y: b.y - hw - 4, anchor: "end", v: "bottom" },
+    ], { partId: sg.id });
+    if (tl) labels.push(...tl);
   }
 
   // Vent label.
