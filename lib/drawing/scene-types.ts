@@ -50,7 +50,10 @@ export type SceneFill = "none" | "paper" | "tint" | "solid";
 /** Fields every primitive carries. */
 export interface PrimitiveBase {
   readonly role: SceneRole;
-  /** Segment id, `vent`, `termination`, `appliance` or `legend`; lets tests and renderers group parts. */
+  /**
+   * Segment id, `vent`, `termination`, `appliance` (`appliance:<id>` and the tee `junction:<id>`
+   * on a common vent) or `legend`; lets tests and renderers group parts.
+   */
   readonly partId?: string;
   /** True on parts that a failing finding targets. */
   readonly highlight?: boolean;
@@ -154,6 +157,24 @@ export interface SceneSegmentInfo {
   readonly findingTitles: readonly string[];
 }
 
+/** One appliance as drawn, with where its connector meets the vent. */
+export interface SceneApplianceInfo {
+  readonly id: string;
+  /** `appliance` when the run is drawn with one appliance, `appliance:<id>` on a common vent. */
+  readonly partId: string;
+  readonly label: string;
+  /** Top of its draft hood or flue collar, where its connector starts. */
+  readonly collar: Point;
+  /** Where its connector joins the vent (a tee on a common vent); null without a connector. */
+  readonly junction: Point | null;
+  /** Its connector segments, in order. */
+  readonly segmentIds: readonly string[];
+  /** On the run but no connector segment assigned to it. */
+  readonly noConnector: boolean;
+  readonly highlight: boolean;
+  readonly findingCodes: readonly FindingCode[];
+}
+
 /** A part with failing findings, for summaries and lists beside the drawing. */
 export interface FailingPart {
   readonly partId: string;
@@ -177,6 +198,8 @@ export interface VentRunScene {
   readonly primitives: readonly ScenePrimitive[];
   readonly legend: readonly LegendEntry[];
   readonly segments: readonly SceneSegmentInfo[];
+  /** The appliances drawn: one, or every appliance on a common vent, each with its own connector. */
+  readonly appliances: readonly SceneApplianceInfo[];
   readonly failingParts: readonly FailingPart[];
   /** Factor by which horizontal connector slopes are steepened so that a small rise is visible. */
   readonly slopeExaggeration: number;

@@ -19,6 +19,7 @@ import {
   len,
   type Box,
 } from "./geometry";
+import { servedApplianceIds } from "./served-appliances";
 import { LabelPlacer, type LabelCandidate, type LabelLine } from "./label-placer";
 import type {
   FailingPart,
@@ -27,6 +28,7 @@ import type {
   Point,
   ScenePrimitive,
   SceneRole,
+  SceneApplianceInfo,
   SceneSegmentInfo,
   TextPrimitive,
   VentRunScene,
@@ -52,6 +54,9 @@ export interface BuildVentRunSceneInput {
   /** Height of the scene in units. Default: 460 when wide, taller than wide below 500. */
   readonly heightPx?: number;
 }
+
+/** Finding code of an appliance on a common vent with no connector segment assigned. */
+const NO_CONNECTOR_CODE = "common_vent.no_connector";
 
 /** Horizontal connector slopes are drawn this many times steeper than true. */
 export const SLOPE_EXAGGERATION = 5;
@@ -94,6 +99,23 @@ function metrics(width: number) {
 
 type M = ReturnType<typeof metrics>;
 
+/** One appliance of the run as drawn: where it stands and where its connector meets the vent. */
+interface ChainPlace {
+  readonly appId: string;
+  readonly app: Partial<Appliance> | undefined;
+  /** `appliance` for a run drawn with one appliance, `appliance:<id>` on a common vent. */
+  readonly partId: string;
+  /** Left (-1) or right (1) of the vent. */
+  readonly side: -1 | 1;
+  /** Its connector segments, in order (indices into the run's segments). */
+  readonly segIdx: number[];
+  collar: Point;
+  connectorEnd: Point | null;
+  /** The tee on the vent; null without a connector. */
+  junction: Point | null;
+  readonly fail: PartFailures | undefined;
+}
+
 interface SegModel {
   readonly index: number;
   readonly id: string;
@@ -132,6 +154,15 @@ export function waterLevelCap(lengths: readonly number[], reduceBy: number, minC
     if (cap >= next) return Math.max(cap, minCap);
   }
   return minCap;
+}
+
+/** "segments 1–3", "segment 4" or "segments 1, 3, 6": the editor's numbering. */
+function segmentList(indices: readonly number[]): string {
+  const ns = indices.map((i) => i + 1);
+  if (ns.length === 1) return `segment ${ns[0]}`;
+  const contiguous = ns.every((n, k) => k === 0 || n === ns[k - 1]! + 1);
+  if (contiguous) return `segments ${ns[0]}–${ns.at(-1)}`;
+  return `segments ${ns.slice(0, 4).join(", ")}${ns.length > 4 ? ` +${ns.length - 4}` : ""}`;
 }
 
 function median(xs: readonly number[]): number | null {
@@ -176,7 +207,11 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const appIds = appliances.map((a, i) => (typeof a.id === "string" && a.id ? a.id : `appliance-${i + 1}`));
   const fails = failuresByPart(findings, segIds, appIds);
 
-  // The appliance drawn: the one the first segment names, else the first the run serves.
+  // Several appliances on the run: each gets its own connector joining a common vent.
+  const served = servedApplianceIds(run, appliances);
+  const multi = served.length > 1;
+
+  // The appliance drawn alone: the one the first segment names, else the first the run serves.
   const firstAppId = rawSegs.find((s) => typeof s.applianceId === "string")?.applianceId ?? run.applianceIds?.[0] ?? appIds[0];
   const appIndex = Math.max(0, appIds.indexOf(firstAppId ?? ""));
   const app = appliances[appIndex];
@@ -184,6 +219,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const otherApps = new Set<string>();
   for (const s of rawSegs) if (typeof s.applianceId === "string" && s.applianceId !== appId) otherApps.add(s.applianceId);
   for (const id of run.applianceIds ?? []) if (id !== appId) otherApps.add(id);
+  if (multi) otherApps.clear();
 
   // ---- Model, in feet, y up ------------------------------------------------------------------
   const knownLengths = rawSegs.map((s) => num(s.lengthFt)).filter((v): v is number => v !== null && v > 0);
@@ -243,7 +279,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const noteLines = topNotes(segs, fails, otherApps, appliances, appIds, term, hasVent, m.maxFailLabels);
   const mTop = m.pad + noteLines.length * (m.small * 1.3) + 26;
   const legendH = legendRows.rows.length * 17 + 20;
-  const mBottom = m.hoodH + m.appH + 10 + 2 * m.font * 1.25 + 8 + legendH;
+  // Below the floor: the appliance label (and on a common vent, its connector and a failure).
+  const mBottom = m.hoodH + m.appH + 10 + 2 * m.font * 1.25 + 8 + legendH + (multi ? 2 * m.small * 1.25 : 0);
   const mLeft = m.appW / 2 + m.pad + 6;
   const plotW = Math.max(40, W - mLeft - m.marginRight);
   const plotH = Math.max(40, H - mTop - mBottom);
@@ -257,14 +294,14 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   // A vent much taller than the connector is drawn shorter, with break marks, so that the
   // connector (where most problems are) gets the room.
   let ventShortened = false;
-  {
+  if (!multi) {
     const e = extent();
     const connector = Math.max(e.w, e.h - (hasVent ? ventPipeFt : 0));
     const cap = Math.max(1.5 * connector, 8, (term ? habFt : 0) + 5);
     if (hasVent && segs.length > 0 && ventPipeFt > cap * 1.25) ((ventPipeFt = cap), (ventShortened = true));
   }
   // A very long horizontal run squashes everything vertical: shorten the longest horizontals.
-  {
+  if (!multi) {
     const e = extent();
     if (e.w > 0 && e.h > 0) {
       const s0 = Math.min(plotW / e.w, plotH / e.h);
@@ -308,12 +345,204 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const maxY = Math.max(...all.map((p) => p.y));
   const spanX = Math.max(maxX - minX, 1e-6);
   const spanY = Math.max(maxY - minY, 1e-6);
-  const s = Math.max(1e-6, Math.min(plotW / spanX, plotH / spanY, m.unitsPerFtMax));
+  let s = Math.max(1e-6, Math.min(plotW / spanX, plotH / spanY, m.unitsPerFtMax));
   const offX = mLeft + Math.max(0, (plotW - s * spanX) / 2) * 0.6;
   const baseY = H - mBottom;
   const P = (w: Point): Point => pt(offX + s * (w.x - minX), baseY - s * (w.y - minY));
   const spts = wpts.map(P);
-  const vpts = ventW.map(P);
+  let vpts = ventW.map(P);
+  // Where each segment is drawn, and the start of the one before it on the same connector.
+  let segA = segs.map((_, i) => spts[i]!);
+  let segB = segs.map((_, i) => spts[i + 1]!);
+  let segPrev: (Point | null)[] = segs.map((_, i) => (i > 0 ? spts[i - 1]! : null));
+  let chains: ChainPlace[] = [
+    { appId, app, partId: "appliance", side: -1, segIdx: segs.map((_, i) => i), collar: spts[0]!, connectorEnd: segs.length > 0 ? spts[segs.length]! : null, junction: segs.length > 0 && vpts.length > 0 ? vpts[0]! : null, fail: fails.appliances.get(appId) },
+  ];
+  const unassigned = new Set<number>();
+  if (multi) {
+    const laid = layoutCommonVent();
+    s = laid.s;
+    vpts = laid.vpts;
+    segA = laid.segA;
+    segB = laid.segB;
+    segPrev = laid.segPrev;
+    chains = laid.chains;
+  }
+  /** Direction the flow takes after segment i: along the next segment of its connector, else into the vent. */
+  const nextDir = (i: number, fallback: Point): Point => {
+    const ch = chains.find((c) => c.segIdx.includes(i));
+    const k = ch ? ch.segIdx.indexOf(i) : -1;
+    const nxt = ch && k >= 0 ? ch.segIdx[k + 1] : undefined;
+    if (nxt !== undefined) return unit(sub(segB[nxt]!, segA[nxt]!));
+    if (multi) return ch && ch.junction && ch.connectorEnd ? unit(sub(ch.junction, ch.connectorEnd)) : fallback;
+    return vpts.length >= 2 ? unit(sub(vpts[1]!, vpts[0]!)) : fallback;
+  };
+
+  /**
+   * Lays out several appliances side by side on the floor, alternately left and right of the
+   * common vent, each connector drawn to scale from its collar to a tee on the vent. A tee's
+   * branch (a fitting, not to scale) is lengthened where needed so that the appliances do not
+   * overlap.
+   */
+  function layoutCommonVent() {
+    const places: ChainPlace[] = served.map((id, k) => ({
+      appId: id,
+      app: appliances[appIds.indexOf(id)],
+      partId: `appliance:${id}`,
+      side: k % 2 === 0 ? -1 : 1,
+      segIdx: [],
+      collar: pt(0, 0),
+      connectorEnd: null,
+      junction: null,
+      fail: fails.appliances.get(id),
+    }));
+    // A segment without an appliance (or naming one not on this run) continues the connector before it.
+    let last = 0;
+    rawSegs.forEach((sg, i) => {
+      const k = typeof sg.applianceId === "string" ? served.indexOf(sg.applianceId) : -1;
+      if (k < 0) unassigned.add(i);
+      const c = k >= 0 ? k : last;
+      places[c]!.segIdx.push(i);
+      last = c;
+    });
+    // World points of each connector from its own collar, x toward the vent, y up (ft).
+    const local = () =>
+      places.map((c) => {
+        const out: Point[] = [pt(0, 0)];
+        for (const i of c.segIdx) {
+          const sg = segs[i]!;
+          const p = out[out.length - 1]!;
+          out.push(sg.orientation === "vertical" ? pt(p.x, p.y + sg.drawFt) : pt(p.x + sg.drawFt, p.y + sg.drawnSlope * sg.drawFt));
+        }
+        return out;
+      });
+    const trueRise = (c: ChainPlace) =>
+      c.segIdx.reduce((acc, i) => acc + (segs[i]!.orientation === "vertical" ? segs[i]!.baseFt : (segs[i]!.riseIn ?? 0) / 12), 0);
+    const connected = places.filter((c) => c.segIdx.length > 0);
+    // The vent is measured from the highest outlet; draw it from the highest tee.
+    let pts = local();
+    const riseOf = (c: ChainPlace) => pts[places.indexOf(c)]!.at(-1)!.y;
+    const highest = () => connected.reduce<ChainPlace | null>((b, c) => (b === null || riseOf(c) > riseOf(b) ? c : b), null);
+    const hi0 = highest();
+    let pipeFt = ventNominal ? Math.max(6, nominalFt * 2) : clamp((ventHeightFt ?? 0) - (hi0 ? trueRise(hi0) : 0), 1, MAX_DRAW_FT);
+    if (term && pipeFt < habFt + 1) pipeFt = habFt + 1;
+    const sideWidth = (side: number) => Math.max(0, ...places.filter((c) => c.side === side).map((c) => pts[places.indexOf(c)]!.at(-1)!.x));
+    const extentM = () => {
+      const w = sideWidth(-1) + sideWidth(1) + lateralFt;
+      const ys = pts.flat().map((p) => p.y);
+      const h = Math.max(0, ...ys) - Math.min(0, ...ys) + pipeFt;
+      return { w, h };
+    };
+    {
+      const e = extentM();
+      const connector = Math.max(e.w, e.h - pipeFt);
+      // Tighter than for one connector: two side by side need the room more.
+      const cap = Math.max(connector, 8, (term ? habFt : 0) + 5);
+      if (connected.length > 0 && pipeFt > cap * 1.25) ((pipeFt = cap), (ventShortened = true));
+    }
+    const fixedW = m.appW + 2 * (m.hw + 8) + 2 * m.pad + 12;
+    const plotWm = Math.max(40, W - fixedW - (places.some((c) => c.side === 1 && c.segIdx.length > 0) ? 0 : m.marginRight));
+    {
+      const e = extentM();
+      if (e.w > 0 && e.h > 0) {
+        const s0 = Math.min(plotWm / e.w, plotH / e.h);
+        if (e.h * s0 < 0.6 * plotH) {
+          const targetW = (e.h * plotWm) / (0.6 * plotH);
+          const hor = segs.filter((sg) => sg.orientation === "horizontal");
+          const cap = waterLevelCap(hor.map((sg) => sg.drawFt), e.w - targetW, Math.max(4, 0.5 * e.h));
+          for (const sg of hor) if (sg.drawFt > cap * 1.2) ((sg.drawFt = cap), (sg.shortened = true));
+          pts = local();
+        }
+      }
+    }
+    const hi = highest();
+    const ys = pts.flat().map((p) => p.y);
+    const minYw = Math.min(0, ...ys);
+    const topW = (hi ? riseOf(hi) : 0) + pipeFt;
+    const spanYm = Math.max(topW - minYw, 1e-6);
+    const wFt = sideWidth(-1) + sideWidth(1) + lateralFt;
+    const sm = Math.max(1e-6, Math.min(plotH / spanYm, wFt > 0 ? plotWm / wFt : Infinity, m.unitsPerFtMax));
+    const baseYm = H - mBottom;
+    const yOf = (y: number) => baseYm - sm * (y - minYw);
+
+    // Distance of each collar from the vent, inner appliances first on each side.
+    const minStub = m.hw + 8;
+    const gap = m.compact ? 12 : 18;
+    const dist = new Map<ChainPlace, number>();
+    const stub = new Map<ChainPlace, number>();
+    for (const side of [-1, 1]) {
+      let prev: number | null = null;
+      for (const c of places.filter((q) => q.side === side)) {
+        const dx = sm * pts[places.indexOf(c)]!.at(-1)!.x;
+        let st = c.segIdx.length > 0 ? minStub : Math.max(minStub, m.appW / 2 + gap);
+        if (prev !== null) st = Math.max(st, prev + m.appW + gap - dx);
+        stub.set(c, st);
+        dist.set(c, dx + st);
+        prev = dx + st;
+      }
+    }
+    // The innermost appliances on either side must not overlap each other.
+    const inL = places.find((c) => c.side === -1);
+    const inR = places.find((c) => c.side === 1);
+    if (inL && inR) {
+      const short = m.appW + gap - (dist.get(inL)! + dist.get(inR)!);
+      if (short > 0)
+        for (const c of places) {
+          stub.set(c, stub.get(c)! + short / 2);
+          dist.set(c, dist.get(c)! + short / 2);
+        }
+    }
+    const leftNeed = Math.max(0, ...places.filter((c) => c.side === -1).map((c) => dist.get(c)!)) + m.appW / 2 + m.pad + 6;
+    const rightNeed = Math.max(sm * lateralFt + m.marginRight, ...places.filter((c) => c.side === 1).map((c) => dist.get(c)! + m.appW / 2 + m.pad + 6));
+    // Spare width goes first where a vertical connector's label needs room beyond its appliance.
+    const labelRoom = (side: number) =>
+      Math.max(
+        0,
+        ...places
+          .filter((c) => c.side === side)
+          .flatMap((c) => c.segIdx.filter((i) => segs[i]!.orientation === "vertical"))
+          .map((i) => textWidth(`${i + 1}: ${fmtNum(segs[i]!.lengthFt ?? 0)} ft up`, m.font, true) + m.hw + 10 - m.appW / 2),
+      );
+    const slack = Math.max(0, W - leftNeed - rightNeed);
+    const wantL = labelRoom(-1);
+    const wantR = labelRoom(1);
+    const xv = leftNeed + (wantL + wantR > slack ? (wantL + wantR > 0 ? (slack * wantL) / (wantL + wantR) : slack / 2) : wantL + (slack - wantL - wantR) / 2);
+
+    const segAm: Point[] = segs.map(() => pt(0, 0));
+    const segBm: Point[] = segs.map(() => pt(0, 0));
+    const segPrevm: (Point | null)[] = segs.map(() => null);
+    places.forEach((c, k) => {
+      const collar = pt(xv + c.side * dist.get(c)!, yOf(0));
+      const px = pts[k]!.map((w) => pt(collar.x - c.side * sm * w.x, yOf(w.y)));
+      c.segIdx.forEach((i, j) => {
+        segAm[i] = px[j]!;
+        segBm[i] = px[j + 1]!;
+        segPrevm[i] = j > 0 ? px[j - 1]! : null;
+      });
+      c.collar = collar;
+      if (c.segIdx.length > 0) {
+        c.connectorEnd = px.at(-1)!;
+        c.junction = pt(xv, c.connectorEnd.y);
+      }
+    });
+
+    // The vent: from the bottom of the lowest tee up past the highest, with its offset, to the top.
+    const vp: Point[] = [];
+    if (hasVent) {
+      const tees = places.filter((c) => c.junction).map((c) => c.junction!.y);
+      const hiY = tees.length > 0 ? Math.min(...tees) : yOf(0) - 20;
+      const loY = tees.length > 0 ? Math.max(...tees) + m.hw + 5 : yOf(0) - 20;
+      vp.push(pt(xv, loY));
+      if (lateralFt > 0) {
+        const jogDy = Math.min(lateralFt, pipeFt * 0.4);
+        const a = (pipeFt - jogDy) * 0.35;
+        const p1 = pt(xv, hiY - sm * a);
+        const p2 = pt(xv + sm * lateralFt, p1.y - sm * jogDy);
+        vp.push(p1, p2, pt(p2.x, hiY - sm * pipeFt));
+      } else vp.push(pt(xv, hiY - sm * pipeFt));
+    }
+    return { s: sm, vpts: vp, segA: segAm, segB: segBm, segPrev: segPrevm, chains: places };
+  }
 
   // ---- Primitives -----------------------------------------------------------------------------
   const back: ScenePrimitive[] = []; // structure behind the pipes
@@ -324,37 +553,43 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const hw = m.hw;
   const drawnKeys = new Set<LegendKey>();
 
-  // Appliance.
-  const collar = spts[0]!;
-  const appFail = fails.appliances.get(appId);
-  const appRole: SceneRole = appFail ? "appliance-fail" : "appliance";
-  const appMeta = { partId: "appliance", ...(appFail ? { highlight: true, findingCodes: appFail.codes } : {}) };
-  const natural = app?.draft === "natural";
-  const boxTop = collar.y + m.hoodH;
-  const boxL = collar.x - m.appW / 2;
-  const floorY = boxTop + m.appH;
+  // Appliances, standing on one floor.
+  const floorY = chains[0]!.collar.y + m.hoodH + m.appH;
   back.push({ kind: "line", role: "floor", x1: m.pad, y1: floorY, x2: W - m.pad, y2: floorY, strokeWidth: 1.2 });
   for (let x = m.pad + 4; x < W - m.pad - 4; x += 9) back.push({ kind: "line", role: "floor", x1: x, y1: floorY + 1, x2: x - 5, y2: floorY + 6, strokeWidth: 0.7 });
-  pipes.push({ kind: "rect", role: appRole, ...appMeta, x: boxL, y: boxTop, width: m.appW, height: m.appH, fill: "tint", strokeWidth: 1.6, radius: 3 });
-  pipes.push({ kind: "line", role: appRole, ...appMeta, x1: boxL + 6, y1: boxTop + m.appH * 0.56, x2: boxL + m.appW - 6, y2: boxTop + m.appH * 0.56, strokeWidth: 0.8 });
-  pipes.push({ kind: "rect", role: appRole, ...appMeta, x: collar.x - 9, y: boxTop + m.appH * 0.68, width: 18, height: 8, fill: "paper", strokeWidth: 0.9, radius: 1.5 });
-  if (natural) {
-    // Draft hood: a skirt wider than the pipe with an open relief gap above the cabinet.
-    pipes.push({
-      kind: "polygon",
-      role: "draft-hood",
-      ...appMeta,
-      points: [pt(collar.x - hw - 1, collar.y), pt(collar.x + hw + 1, collar.y), pt(collar.x + hw + 10, boxTop - 4), pt(collar.x - hw - 10, boxTop - 4)],
-      fill: "paper",
-      strokeWidth: 1.3,
-    });
-  } else {
-    pipes.push({ kind: "rect", role: "draft-hood", ...appMeta, x: collar.x - hw - 2, y: collar.y + 2, width: 2 * hw + 4, height: m.hoodH - 2, fill: "paper", strokeWidth: 1.3 });
-  }
-  placer.avoid({ x0: boxL, y0: collar.y, x1: boxL + m.appW, y1: floorY + 7 });
-  const kindWord = KIND_WORDS[app?.kind ?? "other"] ?? "Appliance";
-  const kindText: TextPrimitive = { kind: "text", role: "label-muted", ...appMeta, x: collar.x, y: boxTop + m.appH * 0.4, text: kindWord, anchor: "middle", size: m.small - (textWidth(kindWord, m.small) > m.appW - 8 ? 1.5 : 0), weight: "normal" };
-  labels.push(kindText);
+  const drawn = chains.map((ch) => {
+    const collar = ch.collar;
+    const appFail = ch.fail;
+    const appRole: SceneRole = appFail ? "appliance-fail" : "appliance";
+    const appMeta = { partId: ch.partId, ...(appFail ? { highlight: true, findingCodes: appFail.codes } : {}) };
+    const natural = ch.app?.draft === "natural";
+    const boxTop = collar.y + m.hoodH;
+    const boxL = collar.x - m.appW / 2;
+    pipes.push({ kind: "rect", role: appRole, ...appMeta, x: boxL, y: boxTop, width: m.appW, height: m.appH, fill: "tint", strokeWidth: 1.6, radius: 3 });
+    pipes.push({ kind: "line", role: appRole, ...appMeta, x1: boxL + 6, y1: boxTop + m.appH * 0.56, x2: boxL + m.appW - 6, y2: boxTop + m.appH * 0.56, strokeWidth: 0.8 });
+    pipes.push({ kind: "rect", role: appRole, ...appMeta, x: collar.x - 9, y: boxTop + m.appH * 0.68, width: 18, height: 8, fill: "paper", strokeWidth: 0.9, radius: 1.5 });
+    if (natural) {
+      // Draft hood: a skirt wider than the pipe with an open relief gap above the cabinet.
+      pipes.push({
+        kind: "polygon",
+        role: "draft-hood",
+        ...appMeta,
+        points: [pt(collar.x - hw - 1, collar.y), pt(collar.x + hw + 1, collar.y), pt(collar.x + hw + 10, boxTop - 4), pt(collar.x - hw - 10, boxTop - 4)],
+        fill: "paper",
+        strokeWidth: 1.3,
+      });
+    } else {
+      pipes.push({ kind: "rect", role: "draft-hood", ...appMeta, x: collar.x - hw - 2, y: collar.y + 2, width: 2 * hw + 4, height: m.hoodH - 2, fill: "paper", strokeWidth: 1.3 });
+    }
+    placer.avoid({ x0: boxL, y0: collar.y, x1: boxL + m.appW, y1: floorY + 7 });
+    const kindWord = KIND_WORDS[ch.app?.kind ?? "other"] ?? "Appliance";
+    const kindText: TextPrimitive = { kind: "text", role: "label-muted", ...appMeta, x: collar.x, y: boxTop + m.appH * 0.4, text: kindWord, anchor: "middle", size: m.small - (textWidth(kindWord, m.small) > m.appW - 8 ? 1.5 : 0), weight: "normal" };
+    labels.push(kindText);
+    const label = (typeof ch.app?.label === "string" && ch.app.label.trim()) || kindWord;
+    return { ch, collar, appFail, appMeta, natural, boxTop, boxL, kindWord, label };
+  });
+  const { collar, appFail, appMeta, natural, boxTop, boxL, kindWord } = drawn[0]!;
+  const anyAppFail = chains.some((c) => c.fail);
 
   // Top-left notes (run-level failures, missing parts).
   noteLines.forEach((n, k) => {
@@ -372,8 +607,33 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       placer.avoid({ x0: p.x - r, y0: p.y - r, x1: p.x + r, y1: p.y + r });
     }
   };
-  segs.forEach((sg, i) => avoidPath(spts[i]!, spts[i + 1]!, hw + 1));
+  segs.forEach((sg, i) => avoidPath(segA[i]!, segB[i]!, hw + 1));
+  for (const ch of chains) if (multi && ch.connectorEnd && ch.junction) avoidPath(ch.connectorEnd, ch.junction, hw + 1);
+  /** An appliance on the run with no connector assigned: a dashed stub ending in a cross above the outlet. */
+  function markNoConnector(d: (typeof drawn)[number]): void {
+    const { ch, collar: c, appFail: f, appMeta: meta } = d;
+    const away = ch.side < 0 ? "end" : "start";
+    const missing = (f?.codes as readonly string[] | undefined)?.includes(NO_CONNECTOR_CODE) ?? false;
+    const role: SceneRole = missing ? "connector-fail" : "connector";
+    const top = pt(c.x, c.y - 22);
+    front.push({ kind: "line", role, ...meta, x1: c.x, y1: c.y, x2: top.x, y2: top.y, strokeWidth: 1.6, dash: [3, 3] });
+    for (const k of [-1, 1]) front.push({ kind: "line", role, ...meta, x1: top.x - 5, y1: top.y - 5 * k, x2: top.x + 5, y2: top.y + 5 * k, strokeWidth: 2 });
+    placer.avoid({ x0: top.x - 6, y0: top.y - 6, x1: top.x + 6, y1: c.y });
+    const np = placer.place(
+      [{ text: "no connector", role: missing ? "label-fail" : "note", size: m.small, weight: "bold" }],
+      [
+        { x: c.x, y: top.y - 8, anchor: "middle", v: "bottom" },
+        { x: c.x - ch.side * 10, y: top.y, anchor: ch.side < 0 ? "start" : "end", v: "middle" },
+        { x: c.x + ch.side * 10, y: top.y, anchor: away === "end" ? "end" : "start", v: "middle" },
+      ],
+      meta,
+      true,
+    );
+    if (np) labels.push(...np);
+  }
+
   for (let i = 0; i + 1 < vpts.length; i++) avoidPath(vpts[i]!, vpts[i + 1]!, hw + 1);
+  if (multi) for (const d of drawn) if (d.ch.segIdx.length === 0) markNoConnector(d);
 
   // Vent, roof and termination.
   const ventFail = fails.vent.codes.length > 0;
@@ -413,10 +673,25 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     drawnKeys.add(ventSingle ? "single-wall" : "type-b");
     if (ventFail) drawnKeys.add("fail");
     if (ventFail) pipes.push({ kind: "polyline", role: "halo", partId: "vent", highlight: true, findingCodes: fails.vent.codes, points: vpts, strokeWidth: 2 * hw + 9 });
+    // On a common vent each connector enters through the side branch of its own tee.
+    const tees = multi ? chains.filter((c) => c.connectorEnd && c.junction) : [];
+    for (const ch of tees) drawPipe(pipes, ch.connectorEnd!, ch.junction!, ventSingle ? "single_wall" : "type_b", ventRole, { ...ventMeta, partId: `junction:${ch.appId}` }, hw, ventNominal);
     for (let i = 0; i + 1 < vpts.length; i++) {
       drawPipe(pipes, vpts[i]!, vpts[i + 1]!, ventSingle ? "single_wall" : "type_b", ventRole, ventMeta, hw * (ventMasonry ? 1.7 : 1), ventNominal);
     }
-    for (let i = segs.length > 0 ? 0 : 1; i + 1 < vpts.length; i++) pipes.push(knuckle(vpts[i]!, hw, ventRole, ventMeta));
+    for (let i = segs.length > 0 && !multi ? 0 : 1; i + 1 < vpts.length; i++) pipes.push(knuckle(vpts[i]!, hw, ventRole, ventMeta));
+    for (const ch of tees) {
+      const tMeta = { ...ventMeta, partId: `junction:${ch.appId}` };
+      const vw = hw * (ventMasonry ? 1.7 : 1);
+      pipes.push({ kind: "polygon", role: ventRole, ...tMeta, points: orientedRect(ch.junction!, pt(0, -1), vw + 5, vw + 1.8), fill: "paper", strokeWidth: 1.4 });
+      const stubEnd = add(ch.junction!, pt(-ch.side * (vw + 1.8), 0));
+      pipes.push({ kind: "line", role: ventRole, ...tMeta, x1: stubEnd.x, y1: ch.junction!.y - hw - 0.8, x2: stubEnd.x, y2: ch.junction!.y + hw + 0.8, strokeWidth: 1.4 });
+    }
+    if (multi && tees.length > 0) {
+      // The tee at the bottom of the vent is capped.
+      const b0 = vpts[0]!;
+      pipes.push({ kind: "line", role: ventRole, ...ventMeta, x1: b0.x - hw - 2.5, y1: b0.y, x2: b0.x + hw + 2.5, y2: b0.y, strokeWidth: 2.2 });
+    }
     if (ventShortened && vpts.length >= 2) {
       const a = vpts[vpts.length - 2]!;
       const b = crossing ?? vpts[vpts.length - 1]!;
@@ -491,10 +766,11 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const labelled = new Set<number>();
   const segLabelJobs: { sg: SegModel; a: Point; b: Point; essential: boolean }[] = [];
   segs.forEach((sg, i) => {
-    const a = spts[i]!;
-    const b = spts[i + 1]!;
+    const a = segA[i]!;
+    const b = segB[i]!;
     const u = unit(sub(b, a));
-    const v = leftNormal(u); // up for a horizontal run, left for a vertical one
+    // Up for a horizontal run (on either side of a common vent), left for a vertical one.
+    const v = sg.orientation === "horizontal" && leftNormal(u).y > 0 ? mul(leftNormal(u), -1) : leftNormal(u);
     const failing = !!sg.fail;
     const role: SceneRole = failing ? "connector-fail" : "connector";
     const meta = { partId: sg.id, ...(failing ? { highlight: true, findingCodes: sg.fail!.codes } : {}) };
@@ -555,7 +831,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
 
     drawPipe(pipes, a, b, sg.material, role, meta, hw, sg.nominal);
     // Joint collars only where they can be told apart; in a dense run they would be beads.
-    if (i > 0 && pxLen >= 6 * hw && len(sub(a, spts[i - 1]!)) >= 6 * hw) pipes.push(knuckle(a, hw, role, meta));
+    const prev = segPrev[i];
+    if (prev && pxLen >= 6 * hw && len(sub(a, prev)) >= 6 * hw) pipes.push(knuckle(a, hw, role, meta));
     if (sg.shortened) breakMark(front, lerpPt(a, b, 0.38), u, hw, sg.id);
 
     // Supports, evenly spread: hangers above a horizontal run, wall brackets beside a vertical one.
@@ -576,7 +853,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
 
     // Turns at the far end of the segment, where its elbow sits.
     if (sg.turns90 + sg.turns45 > 0) {
-      const next = segs[i + 1] ? unit(sub(spts[i + 2]!, b)) : vpts.length >= 2 ? unit(sub(vpts[1]!, vpts[0]!)) : u;
+      const next = nextDir(i, u);
       let outward = sub(u, next);
       if (len(outward) < 1e-6) outward = v;
       const o = unit(outward);
@@ -592,6 +869,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     if (show) segLabelJobs.push({ sg, a, b, essential: failing });
   });
 
+  const deferredTurns: (() => void)[] = [];
   // Segment labels: failing ones first so they get the best places.
   segLabelJobs.sort((x, y) => Number(y.essential) - Number(x.essential));
   for (const job of segLabelJobs) {
@@ -604,6 +882,7 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
         : `${n}: ${sg.riseIn === null ? "rise?" : `${fmtNum(sg.riseIn)} in`} / ${sg.nominal ? "length?" : `${fmtNum(sg.lengthFt ?? 0)} ft`}`;
     const extra: string[] = [];
     if (sg.passage) extra.push(`through ${PASSAGE_WORDS[sg.passage] ?? sg.passage}${sg.thimble ? ", thimble" : ""}`);
+    if (unassigned.has(sg.index)) extra.push("appliance not chosen");
     const t = turnText(sg.turns90, sg.turns45);
     const lines: LabelLine[] = [
       { text: main, role: sg.fail ? "label-fail" : "label", size: m.font, weight: "bold" },
@@ -626,6 +905,29 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
             { x: a.x, y: Math.max(a.y, b.y) + hw + 5, anchor: "start", v: "top" },
             { x: b.x, y: Math.max(a.y, b.y) + hw + 5, anchor: "end", v: "top" },
           ];
+    if (multi) {
+      // Several connectors crowd the middle: a vertical run on the left of the vent is labelled
+      // on its outer side, and any label may move a little to find room.
+      const ch = chains.find((q) => q.segIdx.includes(sg.index));
+      if (sg.orientation === "vertical" && ch?.side === -1) cands.unshift(cands.splice(1, 1)[0]!);
+      if (sg.orientation === "vertical")
+        cands.push({ x: c.x - hw - 8, y: a.y, anchor: "end", v: "bottom" }, { x: c.x - hw - 8, y: b.y, anchor: "end", v: "top" });
+      // A horizontal label wider than its run keeps to its own side of the vent.
+      if (sg.orientation === "horizontal" && ch && textWidth(main, m.font, true) > Math.abs(b.x - a.x)) {
+        const y = Math.max(a.y, b.y) + hw + 5;
+        const above = Math.min(a.y, b.y) - hw - (sg.clearanceIn !== null ? 34 : 20);
+        const x = ch.side < 0 ? Math.max(a.x, b.x) : Math.min(a.x, b.x);
+        const anchor = ch.side < 0 ? "end" : "start";
+        // Beyond the run's outer end, where the connector turns down to its appliance.
+        const outer = ch.side < 0 ? (a.x < b.x ? a : b) : a.x > b.x ? a : b;
+        const beyond: LabelCandidate = { x: outer.x + ch.side * (hw + 12), y: outer.y - hw - 4, anchor, v: "bottom" };
+        cands.unshift({ x, y, anchor, v: "top" }, beyond, { x, y: above, anchor, v: "bottom" });
+      }
+      const near: LabelCandidate[] = [];
+      const dys = sg.orientation === "vertical" ? [14, -14, 28, -28] : [12, 24];
+      for (const dy of dys) for (const dx of [0, 30, -30]) for (const q of cands.slice(0, 3)) near.push({ ...q, x: q.x + dx, y: q.y + dy });
+      cands.push(...near);
+    }
     const head = lines[0]!;
     const shortFail = failLines(sg.fail, m, 1);
     const placed = placer.place(lines, cands, meta, job.essential, [[head, ...shortFail], [head]]);
@@ -633,20 +935,25 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       labels.push(...placed);
       labelled.add(sg.index);
     }
-    if (t) {
-      const next = segs[sg.index + 1] ? unit(sub(spts[sg.index + 2]!, b)) : vpts.length >= 2 ? unit(sub(vpts[1]!, vpts[0]!)) : unit(sub(b, a));
-      let o = sub(unit(sub(b, a)), next);
-      if (len(o) < 1e-6) o = leftNormal(unit(sub(b, a)));
-      const d = unit(o);
-      const tip = add(b, mul(d, hw + 11));
-      const anchor = d.x < -0.3 ? "end" : d.x > 0.3 ? "start" : "middle";
-      const tl = placer.place([{ text: t, role: "label-muted", size: m.small }], [
-        { x: tip.x, y: tip.y, anchor, v: d.y < -0.3 ? "bottom" : d.y > 0.3 ? "top" : "middle" },
-        { x: b.x + hw + 6, y: b.y + hw + 4, anchor: "start", v: "top" },
-        { x: b.x - hw - 6, y: b.y - hw - 4, anchor: "end", v: "bottom" },
-      ], { partId: sg.id });
-      if (tl) labels.push(...tl);
-    }
+    if (t && multi) deferredTurns.push(() => placeTurn(sg, a, b, t));
+    else if (t) placeTurn(sg, a, b, t);
+  }
+  // On a common vent the connector labels come first; the turn counts take the room left.
+  for (const place of deferredTurns) place();
+
+  function placeTurn(sg: SegModel, a: Point, b: Point, t: string): void {
+    const next = nextDir(sg.index, unit(sub(b, a)));
+    let o = sub(unit(sub(b, a)), next);
+    if (len(o) < 1e-6) o = leftNormal(unit(sub(b, a)));
+    const d = unit(o);
+    const tip = add(b, mul(d, hw + 11));
+    const anchor = d.x < -0.3 ? "end" : d.x > 0.3 ? "start" : "middle";
+    const tl = placer.place([{ text: t, role: "label-muted", size: m.small }], [
+      { x: tip.x, y: tip.y, anchor, v: d.y < -0.3 ? "bottom" : d.y > 0.3 ? "top" : "middle" },
+      { x: b.x + hw + 6, y: b.y + hw + 4, anchor: "start", v: "top" },
+      { x: b.x - hw - 6, y: b.y - hw - 4, anchor: "end", v: "bottom" },
+    ], { partId: sg.id });
+    if (tl) labels.push(...tl);
   }
 
   // Vent label.
@@ -657,8 +964,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     const matWord = ventMaterial ? MATERIAL_WORDS[ventMaterial] ?? ventMaterial : "material?";
     const dia = num(vent.diameterIn);
     const lines: LabelLine[] = [
-      { text: `Vent: ${matWord}${dia !== null ? ` ${fmtNum(dia)} in` : ""}`, role: ventFail ? "label-fail" : "label", size: m.font, weight: "bold" },
-      { text: ventNominal ? "height?" : `${fmtNum(ventHeightFt ?? 0)} ft above collar`, role: ventFail ? "label-fail" : "label-muted", size: m.small },
+      { text: `${multi ? "Common vent" : "Vent"}: ${matWord}${dia !== null ? ` ${fmtNum(dia)} in` : ""}`, role: ventFail ? "label-fail" : "label", size: m.font, weight: "bold" },
+      { text: ventNominal ? "height?" : `${fmtNum(ventHeightFt ?? 0)} ft above ${multi ? "top outlet" : "collar"}`, role: ventFail ? "label-fail" : "label-muted", size: m.small },
       ...(lateralFt > 0 ? [{ text: `${fmtNum(lateralFt)} ft lateral`, role: "label-muted" as const, size: m.small }] : []),
       ...failLines(fails.vent, m),
     ];
@@ -679,8 +986,10 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     if (placed) labels.push(...placed);
   }
 
+  // On a common vent: each appliance's label, its connector's name, or a mark where it has none.
+  if (multi) labelCommonVentAppliances();
   // Appliance label under the floor line, and what sits on its outlet.
-  {
+  else {
     const label = (typeof app?.label === "string" && app.label.trim()) || kindWord;
     const inputBtuh = num(app?.inputBtuh);
     const outlet = num(app?.outletDiameterIn);
@@ -711,8 +1020,39 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     if (hood) labels.push(...hood);
   }
 
+  function labelCommonVentAppliances(): void {
+    for (const d of drawn) {
+      const { ch, collar: c, appFail: f, appMeta: meta, boxL: bl, kindWord: kw, label } = d;
+      const inputBtuh = num(ch.app?.inputBtuh);
+      const second = [label !== kw ? kw : "", inputBtuh !== null ? `${fmtNum(inputBtuh, 0)} Btu/h` : "input?"].filter(Boolean).join(" · ");
+      const connFail = ch.segIdx.some((i) => segs[i]!.fail);
+      const conn: LabelLine = ch.segIdx.length > 0
+        ? { text: `connector: ${segmentList(ch.segIdx)}`, role: connFail ? "label-fail" : "label-muted", size: m.small }
+        : { text: "connector: none", role: f ? "label-fail" : "label-muted", size: m.small };
+      const lines: LabelLine[] = [
+        { text: label, role: f ? "label-fail" : "label", size: m.font, weight: "bold" },
+        { text: second, role: "label-muted", size: m.small },
+        conn,
+        ...failLines(f, m, 1),
+      ];
+      const outer: LabelCandidate =
+        ch.side < 0 ? { x: Math.max(m.pad, bl), y: floorY + 9, anchor: "start", v: "top" } : { x: Math.min(W - m.pad, bl + m.appW), y: floorY + 9, anchor: "end", v: "top" };
+      const placed = placer.place(lines, [outer, { x: c.x, y: floorY + 9, anchor: "middle", v: "top" }], meta, true, [[lines[0]!, lines[1]!, conn], [lines[0]!, conn], [lines[0]!]]);
+      if (placed) labels.push(...placed);
+      const away = ch.side < 0 ? "end" : "start";
+      if (!ch.connectorEnd || !ch.junction) continue;
+      if (!m.compact) {
+        const hood = placer.place([{ text: d.natural ? "draft hood" : "flue collar", role: "label-muted", size: m.small - 0.5 }], [
+          { x: c.x + ch.side * (hw + 12), y: c.y + m.hoodH / 2, anchor: ch.side < 0 ? "end" : "start", v: "middle" },
+          { x: c.x - ch.side * (hw + 12), y: c.y + m.hoodH / 2, anchor: ch.side < 0 ? "start" : "end", v: "middle" },
+        ], meta);
+        if (hood) labels.push(...hood);
+      }
+    }
+  }
+
   // Legend and the scale note along the bottom.
-  if (termFail || appFail) drawnKeys.add("fail");
+  if (termFail || anyAppFail) drawnKeys.add("fail");
   const finalLegend = legendLayout(legendRows.entries.filter((e) => drawnKeys.has(e.key)), W, m);
   const legendPrims = drawLegend(finalLegend, H - legendH + 4, m, segs.length > 0);
 
@@ -730,8 +1070,8 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     shortened: sg.shortened,
     trueSlope: sg.trueSlope,
     drawnSlope: sg.orientation === "vertical" ? 0 : sg.drawnSlope,
-    start: fitted.map(spts[i]!),
-    end: fitted.map(spts[i + 1]!),
+    start: fitted.map(segA[i]!),
+    end: fitted.map(segB[i]!),
     supports: sg.supports,
     labelled: labelled.has(i),
     highlight: !!sg.fail,
@@ -740,18 +1080,37 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   }));
 
   const failingParts: FailingPart[] = [];
-  if (appFail) failingParts.push({ partId: "appliance", kind: "appliance", label: (app?.label as string) || kindWord, findingCodes: appFail.codes, titles: appFail.titles });
+  if (!multi && appFail) failingParts.push({ partId: "appliance", kind: "appliance", label: (app?.label as string) || kindWord, findingCodes: appFail.codes, titles: appFail.titles });
+  if (multi) for (const d of drawn) if (d.appFail) failingParts.push({ partId: d.ch.partId, kind: "appliance", label: d.label, findingCodes: d.appFail.codes, titles: d.appFail.titles });
   for (const sg of segs) if (sg.fail) failingParts.push({ partId: sg.id, kind: "segment", label: `Segment ${sg.index + 1}`, findingCodes: sg.fail.codes, titles: sg.fail.titles });
   if (ventFail) failingParts.push({ partId: "vent", kind: "vent", label: "Vent", findingCodes: fails.vent.codes, titles: fails.vent.titles });
   if (termFail) failingParts.push({ partId: "termination", kind: "termination", label: "Termination", findingCodes: fails.termination.codes, titles: fails.termination.titles });
   if (fails.run.codes.length) failingParts.push({ partId: "run", kind: "run", label: "Vent run", findingCodes: fails.run.codes, titles: fails.run.titles });
 
   const appLabel = (typeof app?.label === "string" && app.label.trim()) || kindWord;
+  const names = drawn.map((d) => d.label);
+  const servedText = names.length > 1 ? `${names.slice(0, -1).join(", ")} and ${names.at(-1)}` : names[0] ?? "";
+  const connectorsText = drawn
+    .map((d) => `${d.label}: ${d.ch.segIdx.length > 0 ? plural(d.ch.segIdx.length, "connector segment") : "no connector"}`)
+    .join("; ");
+  const sceneAppliances: SceneApplianceInfo[] = drawn.map((d) => ({
+    id: d.ch.appId,
+    partId: d.ch.partId,
+    label: d.label,
+    collar: fitted.map(d.collar),
+    junction: d.ch.junction ? fitted.map(d.ch.junction) : null,
+    segmentIds: d.ch.segIdx.map((i) => segs[i]!.id),
+    noConnector: d.ch.segIdx.length === 0,
+    highlight: !!d.appFail,
+    findingCodes: d.appFail?.codes ?? [],
+  }));
+  const summary = summarize(segs, ventMaterial, ventHeightFt, term ? { pitch: pitchNominal ? null : pitch, hab: habNominal ? null : habFt } : null, failingParts);
   return {
     width: W,
     height: H,
-    title: `Side view of the vent run from ${appLabel}`,
-    summary: summarize(segs, ventMaterial, ventHeightFt, term ? { pitch: pitchNominal ? null : pitch, hab: habNominal ? null : habFt } : null, failingParts),
+    title: multi ? `Side view of the common vent serving ${servedText}` : `Side view of the vent run from ${appLabel}`,
+    summary: multi ? `Common vent serving ${servedText} (${connectorsText}). ${summary}` : summary,
+    appliances: sceneAppliances,
     primitives: fitted.primitives,
     legend: finalLegend.entries,
     segments: segInfo,

@@ -5,6 +5,7 @@ import { useFieldArray, useWatch, type Control, type UseFormGetValues } from "re
 import { QuantityInput } from "@/components/inspection/quantity-input";
 import { fieldId } from "@/components/inspection/field-id";
 import { CONNECTOR_MATERIAL_LABELS, PASSAGE_LABELS, TERMINATION_OPENING_LABELS, VENT_MATERIAL_LABELS } from "@/components/inspection/options";
+import { servedApplianceIds } from "@/lib/drawing/served-appliances";
 import { formatNumber, type VentRunSizing } from "@/lib/venting";
 import { Readout, Section, SelectField, TriState } from "./form-bits";
 import { newId, type InspectionFormValues } from "./form-values";
@@ -29,14 +30,25 @@ export function VentRunSection({
   const removed = useFieldArray({ control, name: "removedAppliances", keyName: "key" });
   const watched = useWatch({ control, name: "ventRun.segments" });
   const appliances = useWatch({ control, name: "appliances" });
+  const runApplianceIds = useWatch({ control, name: "ventRun.applianceIds" });
+  const applianceName = (id: string | null | undefined): string | null => {
+    const i = appliances.findIndex((a) => a.id === id);
+    return i < 0 ? null : appliances[i]!.label || `Appliance ${i + 1}`;
+  };
+  // On a common vent each appliance has its own connector: the segments are badged with their
+  // appliance and each appliance gets its own "add" button.
+  const served = servedApplianceIds({ applianceIds: runApplianceIds, segments: watched }, appliances);
+  const common = served.length > 1;
 
-  const newSegment = (): Segment => {
-    const last = getValues("ventRun.segments").at(-1);
+  const newSegment = (applianceId?: string): Segment => {
+    const all = getValues("ventRun.segments");
+    const last = applianceId === undefined ? all.at(-1) : all.filter((s) => s.applianceId === applianceId).at(-1);
+    const appliance = appliances.find((a) => a.id === (applianceId ?? last?.applianceId)) ?? appliances[0];
     return {
       id: newId("seg"),
-      applianceId: last?.applianceId ?? appliances[0]?.id ?? null,
+      applianceId: applianceId ?? last?.applianceId ?? appliances[0]?.id ?? null,
       material: last?.material ?? "single_wall",
-      diameterIn: last?.diameterIn ?? appliances[0]?.outletDiameterIn ?? null,
+      diameterIn: last?.diameterIn ?? appliance?.outletDiameterIn ?? null,
       orientation: "horizontal",
       turns45: 0,
       turns90: 0,
@@ -44,6 +56,13 @@ export function VentRunSection({
       sectionsLocked: null,
     };
   };
+  /** Adds a segment at the end of that appliance's connector, so that each connector stays in one piece. */
+  const addFor = (applianceId: string) => {
+    const lastIndex = (getValues("ventRun.segments") ?? []).findLastIndex((s) => s.applianceId === applianceId);
+    if (lastIndex < 0) segments.append(newSegment(applianceId));
+    else segments.insert(lastIndex + 1, newSegment(applianceId));
+  };
+  const segmentNumbers = (applianceId: string): number[] => (watched ?? []).flatMap((s, i) => (s?.applianceId === applianceId ? [i + 1] : []));
 
   return (
     <Section id="ventRun" title="Vent run" aside={<span className="text-xs text-ink-500">From the flue collar to the termination</span>}>
@@ -58,7 +77,16 @@ export function VentRunSection({
           return (
             <li key={field.key} id={fieldId(`ventRun.segments.${index}`)} className="card space-y-3 p-4">
               <div className="flex flex-wrap items-center justify-between gap-2">
-                <p className="font-bold">Segment {index + 1}</p>
+                <p className="flex flex-wrap items-center gap-2 font-bold">
+                  Segment {index + 1}
+                  {common ? (
+                    applianceName(seg?.applianceId) ? (
+                      <span className="inline-flex items-center rounded-full bg-copper-100 px-2.5 py-0.5 text-xs font-semibold text-copper-800">{applianceName(seg?.applianceId)} connector</span>
+                    ) : (
+                      <span className="inline-flex items-center rounded-full bg-warn-soft px-2.5 py-0.5 text-xs font-semibold text-warn">Appliance not chosen</span>
+                    )
+                  ) : null}
+                </p>
                 {editable ? (
                   <div className="flex flex-wrap gap-1">
                     <button type="button" className="btn-ghost min-h-[40px] px-2" aria-label={`Move segment ${index + 1} up`} disabled={index === 0} onClick={() => segments.move(index, index - 1)}>
@@ -126,7 +154,33 @@ export function VentRunSection({
           );
         })}
       </ol>
-      {editable ? (
+      {common ? (
+        <ul className="space-y-2" aria-label="Connectors on this common vent">
+          {served.map((id) => {
+            const numbers = segmentNumbers(id);
+            const name = applianceName(id) ?? id;
+            return (
+              <li key={id} className="card flex flex-wrap items-center justify-between gap-2 p-3">
+                <p className="text-sm">
+                  <span className="font-semibold">{name}</span>{" "}
+                  {numbers.length === 0 ? (
+                    <span className="text-warn">has no connector segment yet</span>
+                  ) : (
+                    <span className="text-ink-600">
+                      connector: {numbers.length === 1 ? "segment" : "segments"} {numbers.join(", ")}
+                    </span>
+                  )}
+                </p>
+                {editable ? (
+                  <button type="button" className="btn-secondary" onClick={() => addFor(id)}>
+                    Add a connector segment for {name}
+                  </button>
+                ) : null}
+              </li>
+            );
+          })}
+        </ul>
+      ) : editable ? (
         <button type="button" className="btn-secondary" onClick={() => segments.append(newSegment())}>
           Add connector segment
         </button>
