@@ -14,13 +14,13 @@ async function starter(api: Awaited<ReturnType<typeof apiAs>>) {
 }
 
 test.describe("rulebooks", () => {
-  test("an installer reads the starter rulebook with its 'from memory' and demo-data labels, but cannot edit", async ({ page, baseURL }) => {
+  test("an installer reads the starter rulebook with its confidence and demo-data labels, but cannot edit", async ({ page, baseURL }) => {
     await new SignInPage(page).signInAs("installer");
     const rulebook = new RulebookPage(page);
     await rulebook.openStarter();
-    await expect(page.getByText("entered from memory — verify every row")).toBeVisible();
+    await expect(page.getByText("read in the published text, recalled from memory or is common practice — verify every row")).toBeVisible();
     await expect(page.getByText("The capacity table is demo data — invented")).toBeVisible();
-    await expect(page.getByText(/from memory — verify against your adopted edition/).first()).toBeVisible();
+    await expect(page.getByText("2018 IFGC 503.10.8; 2018 IRC G2427.10.8 (read in the published text)")).toBeVisible();
     await expect(page.getByRole("button", { name: /Save as version/ })).toHaveCount(0);
     await rulebook.chooseTable("capacity");
     await expect(page.getByText("Demo data — invented, not from any code or manufacturer").first()).toBeVisible();
