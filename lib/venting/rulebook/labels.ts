@@ -23,7 +23,7 @@ export const PARAMETER_LABELS = {
   air_volume_per_1000_btuh_cuft: "Room volume per 1,000 Btu/h",
   infiltration_constant_other_cuft: "Infiltration constant, other appliances",
   infiltration_constant_fan_cuft: "Infiltration constant, fan-assisted",
-  infiltration_ach_threshold: "Air changes below which the standard method fails",
+  infiltration_ach_threshold: "Lowest air changes for the standard method",
   infiltration_ach_max: "Highest air changes the method may use",
   opening_indoor_same_story_sqin_per_1000_btuh: "Indoor openings, same story",
   opening_indoor_min_area_sqin: "Indoor opening minimum area",
