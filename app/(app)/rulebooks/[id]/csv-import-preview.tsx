@@ -71,11 +71,11 @@ export function CsvImportPreview({
           <ul className="mt-1 space-y-1.5" data-testid="csv-preview-changed">
             {diff.changed.slice(0, LIST_LIMIT).map((row) => (
               <li key={`${row.beforeIndex}-${row.afterIndex}`} className="break-words">
-                <span className="font-medium">{row.key}</span> <span className="text-xs text-ink-500">(row {row.beforeIndex + 1})</span>
+                <span className="font-medium">{row.key}</span> <span className="text-xs text-ink-500">(table row {row.beforeIndex + 1})</span>
                 <ul className="ml-4 list-disc pl-3 text-ink-700">
                   {row.changes.map((change) => (
                     <li key={change.column}>
-                      {labelOf(change.column)}: <del className="text-fail">{formatCell(table, change.column, change.before)}</del> → <ins className="font-medium text-pass no-underline">{formatCell(table, change.column, change.after)}</ins>
+                      {labelOf(change.column)}: <del className="text-ink-600 decoration-fail/70">{formatCell(table, change.column, change.before)}</del> → <ins className="font-medium text-pass no-underline">{formatCell(table, change.column, change.after)}</ins>
                     </li>
                   ))}
                 </ul>
@@ -106,7 +106,7 @@ export function CsvImportPreview({
           <ul className="mt-1 list-disc space-y-1 pl-5 text-ink-700" data-testid="csv-preview-removed">
             {diff.removed.slice(0, LIST_LIMIT).map((row) => (
               <li key={row.beforeIndex} className="break-words">
-                <span className="font-medium text-ink-900">{row.key}</span> <span className="text-xs text-ink-500">(row {row.beforeIndex + 1})</span>
+                <span className="font-medium text-ink-900">{row.key}</span> <span className="text-xs text-ink-500">(table row {row.beforeIndex + 1})</span>
               </li>
             ))}
             <More shown={LIST_LIMIT} total={diff.removed.length} />
@@ -125,7 +125,7 @@ export function CsvImportPreview({
             ))}
             {diff.formulaLikeCells.slice(0, LIST_LIMIT).map((cell) => (
               <li key={`${cell.afterIndex}-${cell.column}`} className="break-words">
-                Row {cell.afterIndex + 1}, {labelOf(cell.column)} starts with “{cell.value.charAt(0)}”: it is kept as plain text, but a spreadsheet may run it as a formula.
+                Row {cell.afterIndex + 1} of the file, {labelOf(cell.column)}, starts with “{cell.value.charAt(0)}”: it is kept as plain text, but a spreadsheet may run it as a formula.
               </li>
             ))}
             {warnings.map((w, i) => (

@@ -50,12 +50,12 @@ function isWideText(column: ColumnDefinition): boolean {
 }
 
 function columnWidthRem(table: RulebookTableKey, column: ColumnDefinition): number {
-  if (table === "parameters" && column.key === "key") return 21;
+  if (table === "parameters" && column.key === "key") return 20;
   switch (column.kind) {
     case "enum":
-      return 9.5;
+      return 8.5;
     case "number":
-      return 5.75;
+      return 5.5;
     case "boolean":
       return 5.5;
     case "text":
@@ -253,7 +253,8 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
         </p>
       ))}
 
-      <div className="card overflow-x-auto" role="region" aria-label={`${definition.title} table`} tabIndex={0}>
+      {/* relative: keeps visually hidden labels inside the scrolling box, so the page itself never scrolls sideways. */}
+      <div className="card relative overflow-x-auto" role="region" aria-label={`${definition.title} table`} tabIndex={0}>
         <table className="w-full table-fixed text-left text-sm" style={{ minWidth: `${layout.minWidthRem}rem` }}>
           <colgroup>
             <col style={{ width: `${INDEX_COLUMN_REM}rem` }} />
@@ -314,7 +315,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                       aria-label={label}
                       aria-invalid={cellIssue ? true : undefined}
                       rows={layout.stacked ? 1 : 3}
-                      className="input px-2 py-1 text-xs leading-snug"
+                      className="input px-2 py-1 text-xs leading-snug [field-sizing:content]"
                       value={value === null || value === undefined ? "" : String(value)}
                       onChange={(e) => setCell(rowIndex, column, e.target.value)}
                     />
@@ -380,7 +381,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                         <div className={`grid gap-2 ${layout.wide.length > 1 ? "sm:grid-cols-2" : ""}`}>
                           {layout.wide.map((column) => (
                             <div key={column.key} className="min-w-0">
-                              <span className="text-[11px] font-semibold uppercase tracking-wide text-ink-500" aria-hidden="true">
+                              <span className="mb-0.5 block text-[11px] font-semibold uppercase tracking-wide text-ink-500" aria-hidden="true">
                                 {column.label}
                               </span>
                               {renderCell(column)}
