@@ -1,4 +1,5 @@
 import type { ParameterKey } from "./parameters";
+import { RULEBOOK_TABLES, type ColumnDefinition } from "./table-definitions";
 
 /**
  * Human names for the rulebook's stored keys, for the editor, CSV previews and anywhere a person
@@ -107,4 +108,30 @@ export function optionLabel(value: string): string {
 /** Human name of a parameter key, or the key made readable when it has no label yet. */
 export function parameterLabel(key: string): string {
   return Object.hasOwn(PARAMETER_LABELS, key) ? PARAMETER_LABELS[key as ParameterKey] : humanizeValue(key);
+}
+
+/** Human names of every choice the rulebook tables offer: parameter keys and option values. */
+export interface RulebookChoiceLabels {
+  readonly parameters: Readonly<Record<string, string>>;
+  readonly options: Readonly<Record<string, string>>;
+}
+
+/**
+ * The names the rulebook editor shows, built on the server and handed to the grid as data, so
+ * the editor's first load carries no label tables of its own.
+ */
+export function rulebookChoiceLabels(): RulebookChoiceLabels {
+  const parameters: Record<string, string> = {};
+  const options: Record<string, string> = {};
+  for (const table of Object.values(RULEBOOK_TABLES)) {
+    for (const column of table.columns as readonly ColumnDefinition[]) {
+      if (column.kind !== "enum") continue;
+      const isParameterKey = table === RULEBOOK_TABLES.parameters && column.key === "key";
+      for (const value of column.options ?? []) {
+        if (isParameterKey) parameters[value] = parameterLabel(value);
+        else options[value] = optionLabel(value);
+      }
+    }
+  }
+  return { parameters, options };
 }

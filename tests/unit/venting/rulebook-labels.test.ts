@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { OPTION_LABELS, PARAMETER_LABELS, humanizeValue, optionLabel, parameterLabel } from "@/lib/venting/rulebook/labels";
+import { OPTION_LABELS, PARAMETER_LABELS, humanizeValue, optionLabel, parameterLabel, rulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { PARAMETER_KEYS } from "@/lib/venting/rulebook/parameters";
 import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition } from "@/lib/venting/rulebook/table-definitions";
 
@@ -65,5 +65,18 @@ describe("rulebook labels", () => {
     expect(humanizeValue("")).toBe("");
     // Names inherited from Object.prototype are not labels.
     expect(optionLabel("toString")).toBe("ToString");
+  });
+
+  test("the editor's label set names every parameter key and every option of the tables", () => {
+    const labels = rulebookChoiceLabels();
+    expect(Object.keys(labels.parameters).sort()).toEqual([...PARAMETER_KEYS].sort());
+    expect(labels.parameters.connector_min_slope_in_per_ft).toBe("Connector minimum slope");
+    expect(labels.options).toMatchObject({ single_wall: "Single-wall", type_b: "Type B", masonry_lined: "Lined masonry", operable_window: "Operable window" });
+    for (const table of RULEBOOK_TABLE_KEYS) {
+      for (const column of RULEBOOK_TABLES[table].columns as readonly ColumnDefinition[]) {
+        if (column.kind !== "enum" || table === "parameters") continue;
+        for (const option of column.options ?? []) expect(labels.options[option], option).toBe(optionLabel(option));
+      }
+    }
   });
 });

@@ -1,17 +1,15 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { Fragment, useMemo, useRef, useState } from "react";
+import { Fragment, Suspense, lazy, useMemo, useRef, useState } from "react";
 import { apiFetch, ApiError } from "@/lib/client/api";
 // Straight from the zod-free modules of the engine, so the editor's bundle carries no zod.
-import { optionLabel, parameterLabel } from "@/lib/venting/rulebook/labels";
+import type { RulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { PARAMETER_DEFINITIONS } from "@/lib/venting/rulebook/parameters";
 import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "@/lib/venting/rulebook/table-definitions";
 import type { RulebookContent } from "@/lib/venting/rulebook/tables";
 import { validateRulebookTable, type RulebookIssue } from "@/lib/venting/rulebook/validate";
-import type { CsvRowError } from "@/lib/rulebooks/csv";
-import { diffTableRows } from "@/lib/rulebooks/csv-diff";
-import { CsvImportPreview } from "./csv-import-preview";
+import type { CsvState } from "./csv-import-feedback";
 
 type Row = Record<string, unknown>;
 type Tables = Record<RulebookTableKey, Row[]>;
@@ -76,21 +74,33 @@ function gridLayout(table: RulebookTableKey, columns: readonly ColumnDefinition[
 }
 
 /** An option as a person reads it; the parameters table's keys by their parameter name. */
-function choiceLabel(table: RulebookTableKey, column: ColumnDefinition, value: string): string {
-  return table === "parameters" && column.key === "key" ? parameterLabel(value) : optionLabel(value);
+function choiceLabel(labels: RulebookChoiceLabels, table: RulebookTableKey, column: ColumnDefinition, value: string): string {
+  return (table === "parameters" && column.key === "key" ? labels.parameters[value] : labels.options[value]) ?? value;
 }
 
-type CsvState =
-  | { kind: "errors"; errors: readonly CsvRowError[] }
-  | { kind: "preview"; fileName: string; rows: Row[]; warnings: readonly CsvRowError[] }
-  | { kind: "applied"; warnings: readonly CsvRowError[] }
-  | { kind: "cancelled" };
+// What an import shows (errors, the preview and its diff, the outcome) loads with the first imported
+// file: the editor's first load is on a tight budget.
+const loadCsvImportFeedback = () => import("./csv-import-feedback");
+const CsvImportFeedback = lazy(() => loadCsvImportFeedback().then((m) => ({ default: m.CsvImportFeedback })));
 
 /**
  * The rulebook as editable grids, one table at a time, with live validation, CSV import and
  * export, and saving as the next version.
  */
-export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: { rulebookId: number; versionNumber: number; content: RulebookContent; canEdit: boolean }) {
+export function RulebookEditor({
+  rulebookId,
+  versionNumber,
+  content,
+  canEdit,
+  labels,
+}: {
+  rulebookId: number;
+  versionNumber: number;
+  content: RulebookContent;
+  canEdit: boolean;
+  /** Human names of parameter keys and options (lib/venting/rulebook/labels.ts), from the server. */
+  labels: RulebookChoiceLabels;
+}) {
   const router = useRouter();
   const [tables, setTables] = useState<Tables>(() => {
     const t = {} as Tables;
@@ -119,8 +129,6 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
   }, [tables]);
   const totalErrors = Object.values(errorCounts).reduce((a, b) => a + b, 0);
   const layout = useMemo(() => gridLayout(active, definition.columns, canEdit), [active, definition.columns, canEdit]);
-  // Worked out against the grid as it is now, so edits made while the preview is open count.
-  const csvDiff = useMemo(() => (csv?.kind === "preview" ? diffTableRows(active, rows, csv.rows) : null), [csv, active, rows]);
 
   const update = (next: Row[]) => {
     setTables((t) => ({ ...t, [active]: next }));
@@ -139,7 +147,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
   const importCsv = async (file: File) => {
     setCsv(null);
     // The CSV reader loads only when someone imports a file; most visits just read the tables.
-    const [text, { parseTableCsv }] = await Promise.all([file.text(), import("@/lib/rulebooks/csv")]);
+    const [text, { parseTableCsv }] = await Promise.all([file.text(), import("@/lib/rulebooks/csv"), loadCsvImportFeedback()]);
     const result = parseTableCsv(active, text);
     if (!result.ok) {
       setCsv({ kind: "errors", errors: result.errors });
@@ -211,40 +219,10 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
       </div>
       <p className="text-sm text-ink-600">{definition.description}</p>
 
-      {csv?.kind === "errors" ? (
-        <div role="alert" className="rounded-md border border-fail/30 bg-fail-soft px-3 py-2 text-sm">
-          <p className="font-semibold text-fail">The CSV file was not imported. Fix these lines and import it again:</p>
-          <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-800" data-testid="csv-errors">
-            {csv.errors.map((e, i) => (
-              <li key={i}>
-                Line {e.line}
-                {e.column ? `, column ${e.column}` : ""}: {e.message}
-              </li>
-            ))}
-          </ul>
-        </div>
-      ) : null}
-      {csv?.kind === "preview" && csvDiff ? (
-        <CsvImportPreview table={active} fileName={csv.fileName} diff={csvDiff} warnings={csv.warnings} onApply={applyImport} onCancel={() => setCsv({ kind: "cancelled" })} />
-      ) : null}
-      {csv?.kind === "applied" ? (
-        <div role="status" className="rounded-md bg-pass-soft px-3 py-2 text-sm text-pass">
-          <p>CSV applied to the table below. Review it, then save a new version: nothing is saved until you do.</p>
-          {csv.warnings.length > 0 ? (
-            <ul className="mt-1 list-disc space-y-0.5 pl-5 text-warn">
-              {csv.warnings.map((w, i) => (
-                <li key={i}>
-                  Line {w.line}: {w.message}
-                </li>
-              ))}
-            </ul>
-          ) : null}
-        </div>
-      ) : null}
-      {csv?.kind === "cancelled" ? (
-        <p role="status" className="rounded-md bg-ink-100 px-3 py-2 text-sm text-ink-700">
-          Import cancelled. The table is unchanged.
-        </p>
+      {csv ? (
+        <Suspense fallback={<p role="status" className="text-sm text-ink-600">Reading the file…</p>}>
+          <CsvImportFeedback state={csv} table={active} currentRows={rows} onApply={applyImport} onCancel={() => setCsv({ kind: "cancelled" })} />
+        </Suspense>
       ) : null}
 
       {issuesByRow.get(null)?.map((issue, i) => (
@@ -294,7 +272,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                 let control;
                 if (!canEdit) {
                   if (column.kind === "boolean") control = <span>{value ? "Yes" : "No"}</span>;
-                  else if (column.kind === "enum") control = <span className={isParameterKey ? "font-medium" : ""}>{value === null || value === undefined || value === "" ? "—" : choiceLabel(active, column, String(value))}</span>;
+                  else if (column.kind === "enum") control = <span className={isParameterKey ? "font-medium" : ""}>{value === null || value === undefined || value === "" ? "—" : choiceLabel(labels, active, column, String(value))}</span>;
                   else control = <span className={`break-words ${isWideText(column) ? "text-xs text-ink-700" : ""}`}>{value === null || value === undefined || value === "" ? "—" : String(value)}</span>;
                 } else if (column.kind === "boolean") {
                   control = <input id={id} type="checkbox" aria-label={label} className="h-5 w-5 accent-copper-600" checked={Boolean(value)} onChange={(e) => setCell(rowIndex, column, e.target.checked)} />;
@@ -303,7 +281,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
                     <select id={id} aria-label={label} className="input px-2 py-1 text-sm" value={String(value ?? "")} onChange={(e) => setCell(rowIndex, column, e.target.value)}>
                       {(column.options ?? []).map((o) => (
                         <option key={o} value={o}>
-                          {choiceLabel(active, column, o)}
+                          {choiceLabel(labels, active, column, o)}
                         </option>
                       ))}
                     </select>

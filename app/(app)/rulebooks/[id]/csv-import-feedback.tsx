@@ -1,9 +1,73 @@
 "use client";
 
-import { useEffect, useRef } from "react";
+import { useEffect, useMemo, useRef } from "react";
 import type { CsvRowError } from "@/lib/rulebooks/csv";
-import { formatCell, type TableDiff } from "@/lib/rulebooks/csv-diff";
+import { diffTableRows, formatCell, isEmptyDiff } from "@/lib/rulebooks/csv-diff";
 import { RULEBOOK_TABLES, type ColumnDefinition, type RulebookTableKey } from "@/lib/venting/rulebook/table-definitions";
+
+type Row = Readonly<Record<string, unknown>>;
+
+/** Where a CSV import stands: refused with errors, waiting for confirmation, applied, or cancelled. */
+export type CsvState =
+  | { kind: "errors"; errors: readonly CsvRowError[] }
+  | { kind: "preview"; fileName: string; rows: Record<string, unknown>[]; warnings: readonly CsvRowError[] }
+  | { kind: "applied"; warnings: readonly CsvRowError[] }
+  | { kind: "cancelled" };
+
+/** Everything an import shows above the grid, for each stage of {@link CsvState}. */
+export function CsvImportFeedback({
+  state,
+  table,
+  currentRows,
+  onApply,
+  onCancel,
+}: {
+  state: CsvState;
+  table: RulebookTableKey;
+  currentRows: readonly Row[];
+  onApply: () => void;
+  onCancel: () => void;
+}) {
+  return (
+    <>
+      {state.kind === "errors" ? (
+        <div role="alert" className="rounded-md border border-fail/30 bg-fail-soft px-3 py-2 text-sm">
+          <p className="font-semibold text-fail">The CSV file was not imported. Fix these lines and import it again:</p>
+          <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-800" data-testid="csv-errors">
+            {state.errors.map((e, i) => (
+              <li key={i}>
+                Line {e.line}
+                {e.column ? `, column ${e.column}` : ""}: {e.message}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {state.kind === "preview" ? (
+        <CsvImportPreview table={table} fileName={state.fileName} currentRows={currentRows} importedRows={state.rows} warnings={state.warnings} onApply={onApply} onCancel={onCancel} />
+      ) : null}
+      {state.kind === "applied" ? (
+        <div role="status" className="rounded-md bg-pass-soft px-3 py-2 text-sm text-pass">
+          <p>CSV applied to the table below. Review it, then save a new version: nothing is saved until you do.</p>
+          {state.warnings.length > 0 ? (
+            <ul className="mt-1 list-disc space-y-0.5 pl-5 text-warn">
+              {state.warnings.map((w, i) => (
+                <li key={i}>
+                  Line {w.line}: {w.message}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      ) : null}
+      {state.kind === "cancelled" ? (
+        <p role="status" className="rounded-md bg-ink-100 px-3 py-2 text-sm text-ink-700">
+          Import cancelled. The table is unchanged.
+        </p>
+      ) : null}
+    </>
+  );
+}
 
 /** Rows listed per kind of change; the counts above the lists are always complete. */
 const LIST_LIMIT = 25;
@@ -20,28 +84,32 @@ function More({ shown, total }: { shown: number; total: number }) {
  * What a CSV file would change in one table — rows added, changed (cell by cell, old → new)
  * and removed — with Apply and Cancel. Nothing reaches the table before Apply.
  */
-export function CsvImportPreview({
+function CsvImportPreview({
   table,
   fileName,
-  diff,
+  currentRows,
+  importedRows,
   warnings,
   onApply,
   onCancel,
 }: {
   table: RulebookTableKey;
   fileName: string;
-  diff: TableDiff;
+  currentRows: readonly Row[];
+  importedRows: readonly Row[];
   warnings: readonly CsvRowError[];
   onApply: () => void;
   onCancel: () => void;
 }) {
   const heading = useRef<HTMLHeadingElement>(null);
   useEffect(() => heading.current?.focus(), []);
+  // Against the grid as it is now, so edits made while the preview is open count.
+  const diff = useMemo(() => diffTableRows(table, currentRows, importedRows), [table, currentRows, importedRows]);
   const columns: readonly ColumnDefinition[] = RULEBOOK_TABLES[table].columns;
   const labelOf = (key: string) => columns.find((c) => c.key === key)?.label ?? key;
   const uniqueBy: readonly string[] = RULEBOOK_TABLES[table].uniqueBy;
-  const nothingChanges = diff.added.length === 0 && diff.changed.length === 0 && diff.removed.length === 0 && !diff.orderChanged;
-  const otherCells = (row: Readonly<Record<string, unknown>>) =>
+  const nothingChanges = isEmptyDiff(diff);
+  const otherCells = (row: Row) =>
     columns
       .filter((c) => !uniqueBy.includes(c.key))
       .map((c) => `${c.label}: ${formatCell(table, c.key, row[c.key])}`)
