@@ -3,9 +3,9 @@ import type { Knex } from "knex";
 import { STARTER_RULEBOOK, STARTER_RULEBOOK_NAME } from "./data/starter-rulebook";
 
 /**
- * Each demo company gets the starter rulebook as version 1 and as its current rulebook. Its code
- * values are entered from memory and its capacity table is invented demo data; both say so in
- * every citation, and the rulebook screens show those labels.
+ * Each demo company gets the starter rulebook as version 1 and as its current rulebook. Each code
+ * value's citation names edition and section and says whether it was read in the published text
+ * or recalled; its capacity table is invented demo data and says so in every row.
  */
 export async function seed(knex: Knex): Promise<void> {
   const companies = await knex("companies").select("id");
@@ -16,7 +16,7 @@ export async function seed(knex: Knex): Promise<void> {
       .insert({
         company_id: companyId,
         name: STARTER_RULEBOOK_NAME,
-        description: "Code values from memory of commonly published fuel-gas codes, and an invented demo capacity table. Copy it and enter your adopted edition's values before relying on it.",
+        description: "2018 IFGC and IRC fuel-gas values, each row saying whether it was read in the published text or recalled, and an invented demo capacity table. Copy it and enter your adopted edition's values before relying on it.",
         status: "active",
         latest_version_number: 1,
         created_by: author?.id ?? null,

@@ -14,13 +14,13 @@ async function starter(api: Awaited<ReturnType<typeof apiAs>>) {
 }
 
 test.describe("rulebooks", () => {
-  test("an installer reads the starter rulebook with its 'from memory' and demo-data labels, but cannot edit", async ({ page, baseURL }) => {
+  test("an installer reads the starter rulebook with its confidence and demo-data labels, but cannot edit", async ({ page, baseURL }) => {
     await new SignInPage(page).signInAs("installer");
     const rulebook = new RulebookPage(page);
     await rulebook.openStarter();
-    await expect(page.getByText("entered from memory — verify every row")).toBeVisible();
+    await expect(page.getByText("read in the published text, recalled from memory or is common practice — verify every row")).toBeVisible();
     await expect(page.getByText("The capacity table is demo data — invented")).toBeVisible();
-    await expect(page.getByText(/from memory — verify against your adopted edition/).first()).toBeVisible();
+    await expect(page.getByText("2018 IFGC 503.10.8; 2018 IRC G2427.10.8 (read in the published text)")).toBeVisible();
     await expect(page.getByRole("button", { name: /Save as version/ })).toHaveCount(0);
     await rulebook.chooseTable("capacity");
     await expect(page.getByText("Demo data — invented, not from any code or manufacturer").first()).toBeVisible();
@@ -103,6 +103,27 @@ test.describe("rulebooks", () => {
     await page.getByLabel("CSV file to import into this table").setInputFiles(badFile);
     await expect(page.getByTestId("csv-errors")).toContainText("Line 3");
     await expect(rb.cell("Min height", 1)).toHaveValue(String((latest.content.terminationHeights![0] as { minHeightFt: number }).minHeightFt));
+
+    // A good file is shown as a change list first: cancelling leaves the table as it was; applying changes it.
+    const rows = latest.content.terminationHeights as { pitchFromPer12: number; pitchToPer12: number; minHeightFt: number; citation: string }[];
+    const edited = rows.map((r, i) => (i === 0 ? { ...r, minHeightFt: r.minHeightFt + 0.5, citation: "Adopted edition, local amendment 7" } : r)).slice(0, -1);
+    const goodFile = testInfo.outputPath("good.csv");
+    fs.writeFileSync(goodFile, ["pitchFromPer12,pitchToPer12,minHeightFt,citation", ...edited.map((r) => `${r.pitchFromPer12},${r.pitchToPer12},${r.minHeightFt},"${r.citation}"`)].join("\r\n"));
+    const input = page.getByLabel("CSV file to import into this table");
+    await input.setInputFiles(goodFile);
+    const preview = page.getByTestId("csv-preview");
+    await expect(preview.getByTestId("csv-preview-summary")).toHaveText(`0 rows added, 1 changed, 1 removed, ${rows.length - 2} unchanged.`);
+    await expect(preview.getByTestId("csv-preview-changed")).toContainText(`Min height: ${rows[0]!.minHeightFt} ft → ${rows[0]!.minHeightFt + 0.5} ft`);
+    await expect(rb.cell("Min height", 1)).toHaveValue(String(rows[0]!.minHeightFt));
+    await preview.getByRole("button", { name: "Cancel import" }).click();
+    await expect(preview).toHaveCount(0);
+    await expect(rb.cell("Min height", 1)).toHaveValue(String(rows[0]!.minHeightFt));
+
+    await input.setInputFiles(goodFile);
+    await page.getByRole("button", { name: "Apply to the table" }).click();
+    await expect(rb.cell("Min height", 1)).toHaveValue(String(rows[0]!.minHeightFt + 0.5));
+    await expect(rb.cell("Citation", 1)).toHaveValue("Adopted edition, local amendment 7");
+    await expect(rb.cell("Min height", rows.length)).toHaveCount(0);
   });
 
   test("POST /api/check: the documented example works, bad input gets field errors, another company's version is 404", async ({ baseURL }) => {

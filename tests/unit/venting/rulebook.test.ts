@@ -24,15 +24,39 @@ describe("starter rulebook", () => {
     expect(validateRulebookContent(STARTER_RULEBOOK)).toEqual([]);
   });
 
-  test("every code value says whether it was read, recalled, is trade practice or a placeholder; every capacity row says demo data", () => {
+  test("every code value names edition and section and says how sure it is; every capacity row says demo data", () => {
+    // The confidence words follow the reference table's column: found, memory, practice.
+    const SOURCED = /\(read in the published text\b|\(from memory — verify\)|\(common practice, not a code value\)/;
+    const PRACTICE = "(common practice, not a code value)";
     for (const key of RULEBOOK_TABLE_KEYS) {
       for (const row of STARTER_RULEBOOK[key] as { citation: string }[]) {
-        if (key === "capacity") expect(row.citation).toBe(DEMO_CAPACITY_CITATION);
-        else if (key === "ventConnectorCapacity" || key === "commonVentCapacity") expect(row.citation).toBe(DEMO_MULTIPLE_APPLIANCE_CITATION);
-        else expect(row.citation).toMatch(/from memory — verify against your adopted edition|from memory, section numbers differ|found in (the )?published|common practice|Placeholder|read in the published text/);
+        if (key === "capacity") {
+          expect(row.citation).toBe(DEMO_CAPACITY_CITATION);
+          continue;
+        }
+        if (key === "ventConnectorCapacity" || key === "commonVentCapacity") {
+          expect(row.citation).toBe(DEMO_MULTIPLE_APPLIANCE_CITATION);
+          continue;
+        }
+        expect(row.citation, `${key}: ${row.citation}`).toMatch(SOURCED);
+        // A trade rule of thumb cites no code; every code value names the edition and a section number.
+        if (!row.citation.includes(PRACTICE)) expect(row.citation, `${key}: ${row.citation}`).toMatch(/\b2018 (IFGC|IRC|IMC)\b[^;]*(\d{3}|\b[A-Z]\.\d)/);
       }
     }
     expect(DEMO_CAPACITY_CITATION).toBe("Demo data — invented, not from any code or manufacturer");
+    expect(STARTER_RULEBOOK.demoDataNote).toContain("invented");
+  });
+
+  test("values the reference table marks as recalled say so (IFGC 304.5.3.2, Table 503.10.5, Appendix D Table D.6)", () => {
+    const param = (k: string) => STARTER_RULEBOOK.parameters.find((p) => p.key === k)!.citation;
+    // Reference C4: 2 in² per 1,000 Btu/h between stories, from memory.
+    expect(param("opening_indoor_different_stories_sqin_per_1000_btuh")).toContain("(from memory — verify)");
+    // Reference A12/A13: connector clearances, from memory.
+    for (const row of STARTER_RULEBOOK.clearances) expect(row.citation).toContain("(from memory — verify)");
+    // Reference D2: flue CO limits, values from memory.
+    for (const row of STARTER_RULEBOOK.flueCoLimits) expect(row.citation).toContain("(from memory — verify)");
+    // Reference A1: connector slope, read in IFGC 503.10.8.
+    expect(param("connector_min_slope_in_per_ft")).toBe("2018 IFGC 503.10.8; 2018 IRC G2427.10.8 (read in the published text)");
   });
 
   test("defines every parameter once", () => {

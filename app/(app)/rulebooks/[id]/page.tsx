@@ -5,6 +5,7 @@ import { can } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { getRulebook, getRulebookVersion, type RulebookDetail, type RulebookVersion } from "@/lib/data/rulebooks";
 import { idSchema } from "@/lib/schemas/common";
+import { rulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { RulebookStatusActions } from "../rulebook-status-actions";
 import { RulebookEditor } from "./rulebook-editor";
 
@@ -72,13 +73,14 @@ export default async function RulebookPage({ params, searchParams }: { params: P
         ) : null}
       </div>
 
-      <div className="grid gap-6 xl:grid-cols-[1fr_16rem]">
-        <RulebookEditor key={version.id} rulebookId={rulebook.id} versionNumber={version.versionNumber} content={version.content} canEdit={canEdit} />
+      {/* The grid takes the full width so its citations stay readable on a 1280 px screen; the versions follow it. */}
+      <div className="space-y-6">
+        <RulebookEditor key={version.id} rulebookId={rulebook.id} versionNumber={version.versionNumber} content={version.content} canEdit={canEdit} labels={rulebookChoiceLabels()} />
         <aside aria-labelledby="versions-title" className="space-y-2">
           <h2 id="versions-title" className="text-sm font-bold uppercase tracking-wide text-ink-500">
             Versions
           </h2>
-          <ol className="space-y-2">
+          <ol className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3">
             {rulebook.versions.map((v) => (
               <li key={v.id}>
                 <Link

@@ -1,14 +1,15 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useMemo, useRef, useState } from "react";
+import { Fragment, Suspense, lazy, useMemo, useRef, useState } from "react";
 import { apiFetch, ApiError } from "@/lib/client/api";
 // Straight from the zod-free modules of the engine, so the editor's bundle carries no zod.
+import type { RulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { PARAMETER_DEFINITIONS } from "@/lib/venting/rulebook/parameters";
 import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "@/lib/venting/rulebook/table-definitions";
 import type { RulebookContent } from "@/lib/venting/rulebook/tables";
 import { validateRulebookTable, type RulebookIssue } from "@/lib/venting/rulebook/validate";
-import type { CsvRowError } from "@/lib/rulebooks/csv";
+import type { CsvState } from "./csv-import-feedback";
 
 type Row = Record<string, unknown>;
 type Tables = Record<RulebookTableKey, Row[]>;
@@ -30,11 +31,76 @@ function emptyRow(table: RulebookTableKey): Row {
   return row;
 }
 
+/** Text columns that hold sentences: they get the room that is left, or a line of their own. */
+const WIDE_TEXT_COLUMNS = new Set(["citation", "note"]);
+const INDEX_COLUMN_REM = 2.5;
+const ACTIONS_COLUMN_REM = 7.5;
+const WIDE_TEXT_MIN_REM = 15;
+/**
+ * Room for the grid on a 1280 px screen beside the navigation (62 rem less the card's border):
+ * a table wider than this puts its sentences on a line of their own under each row, so that
+ * citations stay readable without scrolling sideways.
+ */
+const GRID_ROOM_REM = 60;
+
+function isWideText(column: ColumnDefinition): boolean {
+  return column.kind === "text" && WIDE_TEXT_COLUMNS.has(column.key);
+}
+
+function columnWidthRem(table: RulebookTableKey, column: ColumnDefinition): number {
+  if (table === "parameters" && column.key === "key") return 20;
+  switch (column.kind) {
+    case "enum":
+      return 8.5;
+    case "number":
+      return 5.5;
+    case "boolean":
+      return 5.5;
+    case "text":
+      return 8.5;
+    default:
+      column.kind satisfies never;
+      return 8;
+  }
+}
+
+/** Column widths of a table's grid, and whether its sentences go under each row. */
+function gridLayout(table: RulebookTableKey, columns: readonly ColumnDefinition[], withActions: boolean) {
+  const short = columns.filter((c) => !isWideText(c));
+  const wide = columns.filter(isWideText);
+  const fixedRem = INDEX_COLUMN_REM + short.reduce((sum, c) => sum + columnWidthRem(table, c), 0) + (withActions ? ACTIONS_COLUMN_REM : 0);
+  const stacked = wide.length > 0 && fixedRem + wide.length * WIDE_TEXT_MIN_REM > GRID_ROOM_REM;
+  return { short, wide, stacked, minWidthRem: stacked ? fixedRem : fixedRem + wide.length * WIDE_TEXT_MIN_REM };
+}
+
+/** An option as a person reads it; the parameters table's keys by their parameter name. */
+function choiceLabel(labels: RulebookChoiceLabels, table: RulebookTableKey, column: ColumnDefinition, value: string): string {
+  return (table === "parameters" && column.key === "key" ? labels.parameters[value] : labels.options[value]) ?? value;
+}
+
+// What an import shows (errors, the preview and its diff, the outcome) loads with the first imported
+// file: the editor's first load is on a tight budget.
+const loadCsvImportFeedback = () => import("./csv-import-feedback");
+const CsvImportFeedback = lazy(() => loadCsvImportFeedback().then((m) => ({ default: m.CsvImportFeedback })));
+
 /**
  * The rulebook as editable grids, one table at a time, with live validation, CSV import and
  * export, and saving as the next version.
  */
-export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: { rulebookId: number; versionNumber: number; content: RulebookContent; canEdit: boolean }) {
+export function RulebookEditor({
+  rulebookId,
+  versionNumber,
+  content,
+  canEdit,
+  labels,
+}: {
+  rulebookId: number;
+  versionNumber: number;
+  content: RulebookContent;
+  canEdit: boolean;
+  /** Human names of parameter keys and options (lib/venting/rulebook/labels.ts), from the server. */
+  labels: RulebookChoiceLabels;
+}) {
   const router = useRouter();
   const [tables, setTables] = useState<Tables>(() => {
     const t = {} as Tables;
@@ -45,7 +111,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
   const [dirty, setDirty] = useState(false);
   const [changeNote, setChangeNote] = useState("");
   const [saveState, setSaveState] = useState<{ kind: "idle" | "saving" | "error" | "saved"; message?: string; fields?: Record<string, string> }>({ kind: "idle" });
-  const [csvErrors, setCsvErrors] = useState<readonly CsvRowError[] | null>(null);
+  const [csv, setCsv] = useState<CsvState | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
 
   const definition = RULEBOOK_TABLES[active] as { title: string; description: string; columns: readonly ColumnDefinition[] };
@@ -62,6 +128,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
     return counts;
   }, [tables]);
   const totalErrors = Object.values(errorCounts).reduce((a, b) => a + b, 0);
+  const layout = useMemo(() => gridLayout(active, definition.columns, canEdit), [active, definition.columns, canEdit]);
 
   const update = (next: Row[]) => {
     setTables((t) => ({ ...t, [active]: next }));
@@ -78,16 +145,21 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
   };
 
   const importCsv = async (file: File) => {
-    setCsvErrors(null);
+    setCsv(null);
     // The CSV reader loads only when someone imports a file; most visits just read the tables.
-    const [text, { parseTableCsv }] = await Promise.all([file.text(), import("@/lib/rulebooks/csv")]);
+    const [text, { parseTableCsv }] = await Promise.all([file.text(), import("@/lib/rulebooks/csv"), loadCsvImportFeedback()]);
     const result = parseTableCsv(active, text);
     if (!result.ok) {
-      setCsvErrors(result.errors);
+      setCsv({ kind: "errors", errors: result.errors });
       return;
     }
-    update(result.rows as Row[]);
-    setCsvErrors(result.warnings.length ? result.warnings : []);
+    // Nothing changes until the person has seen what the file would change and confirmed it.
+    setCsv({ kind: "preview", fileName: file.name, rows: result.rows as Row[], warnings: result.warnings });
+  };
+  const applyImport = () => {
+    if (csv?.kind !== "preview") return;
+    update(csv.rows.map((r) => ({ ...r })));
+    setCsv({ kind: "applied", warnings: csv.warnings });
   };
 
   const save = async () => {
@@ -113,7 +185,7 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
           <label htmlFor="rulebook-table" className="label">
             Table
           </label>
-          <select id="rulebook-table" className="input" value={active} onChange={(e) => { setActive(e.target.value as RulebookTableKey); setCsvErrors(null); }}>
+          <select id="rulebook-table" className="input" value={active} onChange={(e) => { setActive(e.target.value as RulebookTableKey); setCsv(null); }}>
             {RULEBOOK_TABLE_KEYS.map((key) => (
               <option key={key} value={key}>
                 {RULEBOOK_TABLES[key].title} ({tables[key].length} rows{errorCounts[key] ? `, ${errorCounts[key]} to fix` : ""})
@@ -147,22 +219,10 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
       </div>
       <p className="text-sm text-ink-600">{definition.description}</p>
 
-      {csvErrors ? (
-        csvErrors.length === 0 ? (
-          <p role="status" className="rounded-md bg-pass-soft px-3 py-2 text-sm text-pass">CSV imported into the table below. Review it, then save a new version.</p>
-        ) : (
-          <div role="alert" className="rounded-md border border-fail/30 bg-fail-soft px-3 py-2 text-sm">
-            <p className="font-semibold text-fail">The CSV file was not imported. Fix these lines and import it again:</p>
-            <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink-800" data-testid="csv-errors">
-              {csvErrors.map((e, i) => (
-                <li key={i}>
-                  Line {e.line}
-                  {e.column ? `, column ${e.column}` : ""}: {e.message}
-                </li>
-              ))}
-            </ul>
-          </div>
-        )
+      {csv ? (
+        <Suspense fallback={<p role="status" className="text-sm text-ink-600">Reading the file…</p>}>
+          <CsvImportFeedback state={csv} table={active} currentRows={rows} onApply={applyImport} onCancel={() => setCsv({ kind: "cancelled" })} />
+        </Suspense>
       ) : null}
 
       {issuesByRow.get(null)?.map((issue, i) => (
@@ -171,112 +231,154 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
         </p>
       ))}
 
-      <div className="card overflow-x-auto">
-        <table className="w-full min-w-[40rem] text-left text-sm">
+      {/* relative: keeps visually hidden labels inside the scrolling box, so the page itself never scrolls sideways. */}
+      <div className="card relative overflow-x-auto" role="region" aria-label={`${definition.title} table`} tabIndex={0}>
+        <table className="w-full table-fixed text-left text-sm" style={{ minWidth: `${layout.minWidthRem}rem` }}>
+          <colgroup>
+            <col style={{ width: `${INDEX_COLUMN_REM}rem` }} />
+            {definition.columns.map((c) =>
+              layout.stacked && isWideText(c) ? null : <col key={c.key} style={isWideText(c) ? undefined : { width: `${columnWidthRem(active, c)}rem` }} />,
+            )}
+            {canEdit ? <col style={{ width: `${ACTIONS_COLUMN_REM}rem` }} /> : null}
+          </colgroup>
           <thead className="border-b border-ink-200 bg-ink-50 text-xs uppercase tracking-wide text-ink-500">
             <tr>
-              <th className="w-10 px-2 py-2">#</th>
-              {definition.columns.map((c) => (
-                <th key={c.key} className="px-2 py-2">
-                  {c.label}
-                  {c.unit ? <span className="block normal-case text-ink-400">{c.unit}</span> : null}
+              <th className="px-1.5 py-2">#</th>
+              {definition.columns.map((c) =>
+                layout.stacked && isWideText(c) ? null : (
+                  <th key={c.key} className="break-words px-1.5 py-2 align-bottom">
+                    {c.label}
+                    {c.unit ? <span className="block normal-case text-ink-400">{c.unit}</span> : null}
+                  </th>
+                ),
+              )}
+              {canEdit ? (
+                <th className="px-1.5 py-2">
+                  <span className="sr-only">Row actions</span>
                 </th>
-              ))}
-              {canEdit ? <th className="px-2 py-2"><span className="sr-only">Row actions</span></th> : null}
+              ) : null}
             </tr>
           </thead>
           <tbody>
             {rows.map((row, rowIndex) => {
               const rowIssues = issuesByRow.get(rowIndex) ?? [];
+              const rowTone = rowIssues.some((i) => i.severity === "error") ? "bg-fail-soft/40" : "";
+              const renderCell = (column: ColumnDefinition) => {
+                const cellIssue = rowIssues.find((i) => i.column === column.key);
+                const id = `cell-${active}-${rowIndex}-${column.key}`;
+                const value = row[column.key];
+                const label = `${column.label}, row ${rowIndex + 1}`;
+                const isParameterKey = active === "parameters" && column.key === "key";
+                let control;
+                if (!canEdit) {
+                  if (column.kind === "boolean") control = <span>{value ? "Yes" : "No"}</span>;
+                  else if (column.kind === "enum") control = <span className={isParameterKey ? "font-medium" : ""}>{value === null || value === undefined || value === "" ? "—" : choiceLabel(labels, active, column, String(value))}</span>;
+                  else control = <span className={`break-words ${isWideText(column) ? "text-xs text-ink-700" : ""}`}>{value === null || value === undefined || value === "" ? "—" : String(value)}</span>;
+                } else if (column.kind === "boolean") {
+                  control = <input id={id} type="checkbox" aria-label={label} className="h-5 w-5 accent-copper-600" checked={Boolean(value)} onChange={(e) => setCell(rowIndex, column, e.target.checked)} />;
+                } else if (column.kind === "enum") {
+                  control = (
+                    <select id={id} aria-label={label} className="input px-2 py-1 text-sm" value={String(value ?? "")} onChange={(e) => setCell(rowIndex, column, e.target.value)}>
+                      {(column.options ?? []).map((o) => (
+                        <option key={o} value={o}>
+                          {choiceLabel(labels, active, column, o)}
+                        </option>
+                      ))}
+                    </select>
+                  );
+                } else if (isWideText(column)) {
+                  control = (
+                    <textarea
+                      id={id}
+                      aria-label={label}
+                      aria-invalid={cellIssue ? true : undefined}
+                      rows={layout.stacked ? 1 : 3}
+                      className="input px-2 py-1 text-xs leading-snug [field-sizing:content]"
+                      value={value === null || value === undefined ? "" : String(value)}
+                      onChange={(e) => setCell(rowIndex, column, e.target.value)}
+                    />
+                  );
+                } else {
+                  control = (
+                    <input
+                      id={id}
+                      aria-label={label}
+                      aria-invalid={cellIssue ? true : undefined}
+                      className="input px-2 py-1 text-sm"
+                      inputMode={column.kind === "number" ? "decimal" : undefined}
+                      value={value === null || value === undefined ? "" : String(value)}
+                      onChange={(e) => setCell(rowIndex, column, cellValue(column, e.target.value))}
+                    />
+                  );
+                }
+                const parameter = isParameterKey ? PARAMETER_DEFINITIONS[String(value) as keyof typeof PARAMETER_DEFINITIONS] : undefined;
+                return (
+                  <>
+                    {control}
+                    {isParameterKey ? (
+                      <span className="mt-1 block text-xs text-ink-500">
+                        {/* The stored key stays visible, small: CSV files and the API use it. */}
+                        <code className="break-all text-[11px] text-ink-400">{String(value ?? "")}</code>
+                        {parameter ? ` · in ${parameter.unit}` : ""}
+                        {parameter ? <span className="block">{parameter.description}</span> : null}
+                      </span>
+                    ) : null}
+                    {cellIssue ? <span className={`mt-1 block text-xs font-medium ${cellIssue.severity === "error" ? "text-fail" : "text-warn"}`}>{cellIssue.message}</span> : null}
+                  </>
+                );
+              };
               return (
-                <tr key={rowIndex} className={`border-b border-ink-100 align-top last:border-0 ${rowIssues.some((i) => i.severity === "error") ? "bg-fail-soft/40" : ""}`}>
-                  <td className="px-2 py-2 text-xs text-ink-400">{rowIndex + 1}</td>
-                  {definition.columns.map((column) => {
-                    const cellIssue = rowIssues.find((i) => i.column === column.key);
-                    const id = `cell-${active}-${rowIndex}-${column.key}`;
-                    const value = row[column.key];
-                    const label = `${column.label}, row ${rowIndex + 1}`;
-                    let control;
-                    if (!canEdit) {
-                      control = <span className={column.key === "citation" ? "text-xs text-ink-600" : ""}>{column.kind === "boolean" ? (value ? "Yes" : "No") : String(value ?? "—")}</span>;
-                    } else if (column.kind === "boolean") {
-                      control = <input id={id} type="checkbox" aria-label={label} className="h-5 w-5 accent-copper-600" checked={Boolean(value)} onChange={(e) => setCell(rowIndex, column, e.target.checked)} />;
-                    } else if (column.kind === "enum") {
-                      control = (
-                        <select
-                          id={id}
-                          aria-label={label}
-                          className={`input py-1 text-sm ${active === "parameters" ? "min-w-[17rem]" : "min-w-[9rem]"}`}
-                          value={String(value ?? "")}
-                          onChange={(e) => setCell(rowIndex, column, e.target.value)}
-                        >
-                          {(column.options ?? []).map((o) => (
-                            <option key={o} value={o}>
-                              {o}
-                            </option>
-                          ))}
-                        </select>
-                      );
-                    } else if (column.key === "citation" || column.key === "note") {
-                      control = (
-                        <textarea
-                          id={id}
-                          aria-label={label}
-                          aria-invalid={cellIssue ? true : undefined}
-                          rows={2}
-                          className="input min-w-[18rem] py-1 text-xs"
-                          value={value === null || value === undefined ? "" : String(value)}
-                          onChange={(e) => setCell(rowIndex, column, e.target.value)}
-                        />
-                      );
-                    } else {
-                      control = (
-                        <input
-                          id={id}
-                          aria-label={label}
-                          aria-invalid={cellIssue ? true : undefined}
-                          className="input min-w-[6rem] py-1 text-sm"
-                          inputMode={column.kind === "number" ? "decimal" : undefined}
-                          value={value === null || value === undefined ? "" : String(value)}
-                          onChange={(e) => setCell(rowIndex, column, cellValue(column, e.target.value))}
-                        />
-                      );
-                    }
-                    return (
-                      <td key={column.key} className="px-2 py-2">
-                        {control}
-                        {active === "parameters" && column.key === "key" ? (
-                          <span className="mt-1 block text-xs text-ink-500">{PARAMETER_DEFINITIONS[String(value) as keyof typeof PARAMETER_DEFINITIONS]?.description ?? ""}</span>
-                        ) : null}
-                        {cellIssue ? <span className={`mt-1 block text-xs font-medium ${cellIssue.severity === "error" ? "text-fail" : "text-warn"}`}>{cellIssue.message}</span> : null}
+                <Fragment key={rowIndex}>
+                  <tr className={`align-top ${layout.stacked ? "" : "border-b border-ink-100"} ${rowTone}`}>
+                    <td className="px-1.5 py-2 text-xs text-ink-400">{rowIndex + 1}</td>
+                    {definition.columns.map((column) =>
+                      layout.stacked && isWideText(column) ? null : (
+                        <td key={column.key} className="min-w-0 px-1.5 py-2">
+                          {renderCell(column)}
+                        </td>
+                      ),
+                    )}
+                    {canEdit ? (
+                      <td className="whitespace-nowrap px-1 py-2">
+                        <button type="button" className="btn-ghost min-h-0 px-1.5 py-1" aria-label={`Move row ${rowIndex + 1} up`} title="Move up" onClick={() => move(rowIndex, rowIndex - 1)}>
+                          ↑
+                        </button>
+                        <button type="button" className="btn-ghost min-h-0 px-1.5 py-1" aria-label={`Move row ${rowIndex + 1} down`} title="Move down" onClick={() => move(rowIndex, rowIndex + 1)}>
+                          ↓
+                        </button>
+                        <button type="button" className="btn-ghost min-h-0 px-1.5 py-1 text-xs text-fail" aria-label={`Remove row ${rowIndex + 1}`} onClick={() => update(rows.filter((_, i) => i !== rowIndex))}>
+                          Remove
+                        </button>
                       </td>
-                    );
-                  })}
-                  {canEdit ? (
-                    <td className="whitespace-nowrap px-2 py-2">
-                      <button type="button" className="btn-ghost min-h-0 px-2 py-1" aria-label={`Move row ${rowIndex + 1} up`} onClick={() => move(rowIndex, rowIndex - 1)}>
-                        ↑
-                      </button>
-                      <button type="button" className="btn-ghost min-h-0 px-2 py-1" aria-label={`Move row ${rowIndex + 1} down`} onClick={() => move(rowIndex, rowIndex + 1)}>
-                        ↓
-                      </button>
-                      <button type="button" className="btn-ghost min-h-0 px-2 py-1 text-fail" aria-label={`Remove row ${rowIndex + 1}`} onClick={() => update(rows.filter((_, i) => i !== rowIndex))}>
-                        Remove
-                      </button>
-                    </td>
+                    ) : null}
+                  </tr>
+                  {layout.stacked ? (
+                    <tr className={`border-b border-ink-100 ${rowTone}`}>
+                      <td />
+                      <td colSpan={layout.short.length + (canEdit ? 1 : 0)} className="px-1.5 pb-2">
+                        <div className={`grid gap-2 ${layout.wide.length > 1 ? "sm:grid-cols-2" : ""}`}>
+                          {layout.wide.map((column) => (
+                            <div key={column.key} className="min-w-0">
+                              <span className="mb-0.5 block text-[11px] font-semibold uppercase tracking-wide text-ink-500" aria-hidden="true">
+                                {column.label}
+                              </span>
+                              {renderCell(column)}
+                            </div>
+                          ))}
+                        </div>
+                      </td>
+                    </tr>
                   ) : null}
-                </tr>
+                </Fragment>
               );
             })}
-            {rows.length > 0
-              ? null
-              : (
-                <tr>
-                  <td colSpan={definition.columns.length + 2} className="px-3 py-6 text-center text-ink-500">
-                    This table is empty.
-                  </td>
-                </tr>
-              )}
+            {rows.length > 0 ? null : (
+              <tr>
+                <td colSpan={definition.columns.length + 2} className="px-3 py-6 text-center text-ink-500">
+                  This table is empty.
+                </td>
+              </tr>
+            )}
             {[...issuesByRow.entries()]
               .filter(([rowIndex, list]) => rowIndex !== null && list.some((i) => i.column === null))
               .map(([rowIndex, list]) => (
@@ -289,7 +391,6 @@ export function RulebookEditor({ rulebookId, versionNumber, content, canEdit }: 
           </tbody>
         </table>
       </div>
-
       {canEdit ? (
         <div className="space-y-3">
           <button type="button" className="btn-secondary" onClick={() => update([...rows, emptyRow(active)])}>
