@@ -19,7 +19,8 @@ export interface SessionData {
 
 export type Member = SessionMember;
 
-function secureCookies(): boolean {
+/** Whether cookies carry Secure: COOKIE_SECURE, or by default only in production. */
+export function secureCookies(): boolean {
   if (process.env.COOKIE_SECURE === "false") return false;
   if (process.env.COOKIE_SECURE === "true") return true;
   return process.env.NODE_ENV === "production";
