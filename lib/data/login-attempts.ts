@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { getDb } from "@/db/knex";
 import { nowIso } from "./clock";
+import { recordAudit } from "./audit";
 
 /** What a password was typed for: signing in, or re-entering it while signed in (approving, changing it). */
 export type AttemptPurpose = "sign_in" | "reauth";
@@ -74,5 +75,18 @@ export async function markLoginAttemptSucceeded(attemptId: number, subject: Atte
     const failures = trx("login_attempts").where({ purpose: subject.purpose, succeeded: false });
     if (subject.device !== null) await failures.andWhere({ device: subject.device }).delete();
     else await failures.andWhere({ email: subject.email }).whereNull("device").delete();
+  });
+}
+
+/** A wrong password typed again while signed in, kept in the company's audit trail. */
+export async function auditFailedPasswordReentry(args: { companyId: number; userId: number; name: string; summary: string; client: string }): Promise<void> {
+  await recordAudit(getDb(), {
+    companyId: args.companyId,
+    actor: { userId: args.userId, name: args.name },
+    action: "session.password_reentry_failed",
+    entityType: "user",
+    entityId: args.userId,
+    summary: args.summary,
+    after: { client: args.client },
   });
 }
