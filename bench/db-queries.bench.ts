@@ -86,7 +86,8 @@ async function main() {
     { name: "inspections: for one job", call: () => inspections.listInspectionsForJob({ companyId: company.id, jobId: someJob.id }) },
     { name: "inspections: one inspection (GET /api/inspections/:id)", call: () => inspections.getInspection({ companyId: company.id, id: someInspection.id }) },
     { name: "sessions: member behind a session", call: () => sessions.findSessionMember(sid) },
-    { name: "sign-in: recent failures (rate limit)", call: () => attempts.recentFailures({ email: "installer@flueward.test", client: "127.0.0.1", sinceIso: new Date(Date.now() - 900_000).toISOString() }) },
+    { name: "sign-in: recent failures (rate limit)", call: () => attempts.recentFailures({ purpose: "sign_in", email: "installer@flueward.test", client: "127.0.0.1", device: null }, new Date(Date.now() - 900_000).toISOString()) },
+    { name: "sign-in: recent failures of a known device", call: () => attempts.recentFailures({ purpose: "sign_in", email: "installer@flueward.test", client: "127.0.0.1", device: "AAAAAAAAAAAAAAAAAAAAAA" }, new Date(Date.now() - 900_000).toISOString()) },
   ];
 
   const results = [];

@@ -7,6 +7,7 @@ import * as inspectionListIndexes from "./migrations/20261201000005_inspection_l
 import * as jobSearchIndex from "./migrations/20261201000006_job_search_index";
 import * as jobSearchTrigrams from "./migrations/20261201000007_job_search_trigrams";
 import * as jobTotals from "./migrations/20261201000008_job_totals";
+import * as signInDevices from "./migrations/20261205000001_sign_in_devices";
 
 /**
  * The migrations as a static list, for runtimes that cannot load .ts files from a folder
@@ -22,6 +23,7 @@ export const MIGRATIONS: Record<string, { up: (knex: Knex) => Promise<void>; dow
   "20261201000006_job_search_index.ts": jobSearchIndex,
   "20261201000007_job_search_trigrams.ts": jobSearchTrigrams,
   "20261201000008_job_totals.ts": jobTotals,
+  "20261205000001_sign_in_devices.ts": signInDevices,
 };
 
 export const staticMigrationSource: Knex.MigrationSource<string> = {

@@ -9,6 +9,9 @@ export FLUEWARD_UPLOADS_DIR="$PWD/test-results/e2e-db/uploads"
 rm -rf "$PWD/test-results/e2e-db"
 mkdir -p "$PWD/test-results/e2e-db"
 npx tsx scripts/prepare-db.ts
+# The tests stand in for one trusted proxy: a test playing a distant client sends its own
+# X-Forwarded-For (lockout tests); every other request is the loopback address Next fills in.
+export TRUSTED_PROXY_COUNT=1
 
 # E-mail goes to a fake SMTP server whose outbox the tests read (test-results/e2e-outbox, also
 # served at /dev/outbox); a file named .fail-next there makes it refuse the next message.

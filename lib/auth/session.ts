@@ -19,7 +19,8 @@ export interface SessionData {
 
 export type Member = SessionMember;
 
-function secureCookies(): boolean {
+/** Whether cookies carry Secure: COOKIE_SECURE, or by default only in production. */
+export function secureCookies(): boolean {
   if (process.env.COOKIE_SECURE === "false") return false;
   if (process.env.COOKIE_SECURE === "true") return true;
   return process.env.NODE_ENV === "production";
@@ -72,10 +73,16 @@ export const getCurrentMember = cache(async (): Promise<Member | null> => {
   return findSessionMember(sid);
 });
 
-/** For route handlers and server actions: the member, or a 401 error. */
-export async function requireMember(): Promise<Member> {
+/**
+ * For route handlers and server actions: the member, or a 401 error. A member still on a
+ * temporary password gets 403 `password_change_required` everywhere except the few routes that
+ * pass `allowTemporaryPassword` (changing the password, reading who is signed in); since
+ * `requireRole` and `requirePermission` come through here too, a new route is covered by default.
+ */
+export async function requireMember(options: { allowTemporaryPassword?: boolean } = {}): Promise<Member> {
   const member = await getCurrentMember();
   if (!member) throw new AppError("unauthenticated");
+  if (member.mustChangePassword && !options.allowTemporaryPassword) throw new AppError("password_change_required");
   return member;
 }
 

@@ -41,6 +41,9 @@ export async function apiFetch<T>(path: string, options: { method?: string; body
     if (response.status === 401 && typeof window !== "undefined" && !path.startsWith("/api/auth/")) {
       window.location.assign("/sign-in");
     }
+    if (error?.code === "password_change_required" && typeof window !== "undefined") {
+      window.location.assign("/account?first=1");
+    }
     throw new ApiError(response.status, error?.code ?? "http_error", error?.message ?? `The server answered ${response.status}.`, error?.fields ?? {});
   }
   return data as T;

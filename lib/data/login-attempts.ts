@@ -2,17 +2,43 @@ import "server-only";
 import type { Knex } from "knex";
 import { getDb } from "@/db/knex";
 import { nowIso } from "./clock";
+import { recordAudit } from "./audit";
 
-/** Failed attempts since a moment, for one account and for one client address, with the oldest time of each. */
-export async function recentFailures(args: { email: string; client: string; sinceIso: string }, db: Knex | Knex.Transaction = getDb()) {
-  const [byEmail, byClient] = await Promise.all([
-    db("login_attempts").where({ email: args.email, succeeded: false }).andWhere("created_at", ">", args.sinceIso).orderBy("created_at", "asc").select("created_at"),
-    db("login_attempts").where({ client: args.client, succeeded: false }).andWhere("created_at", ">", args.sinceIso).orderBy("created_at", "asc").select("created_at"),
+/** What a password was typed for: signing in, or re-entering it while signed in (approving, changing it). */
+export type AttemptPurpose = "sign_in" | "reauth";
+
+/**
+ * Whom an attempt counts against. With a device (the id from a valid device cookie for this
+ * account) the attempt is counted only for that device; without one, for the account and for the
+ * client address, the counts that lock out unknown clients.
+ */
+export interface AttemptSubject {
+  purpose: AttemptPurpose;
+  email: string;
+  client: string;
+  device: string | null;
+}
+
+/** Times (ISO) of the failures within the window, oldest first, per counter the subject is judged by. */
+export interface RecentFailures {
+  account: string[];
+  client: string[];
+  device: string[];
+}
+
+const times = (rows: Array<{ created_at: string }>) => rows.map((r) => r.created_at);
+
+/** Failed attempts since a moment, for each counter the subject is judged by (the others are empty). */
+export async function recentFailures(subject: AttemptSubject, sinceIso: string, db: Knex | Knex.Transaction = getDb()): Promise<RecentFailures> {
+  const failures = () => db("login_attempts").where({ purpose: subject.purpose, succeeded: false }).andWhere("created_at", ">", sinceIso).orderBy("created_at", "asc").select("created_at");
+  if (subject.device !== null) {
+    return { account: [], client: [], device: times(await failures().andWhere({ device: subject.device })) };
+  }
+  const [account, client] = await Promise.all([
+    failures().andWhere({ email: subject.email }).whereNull("device"),
+    failures().andWhere({ client: subject.client }).whereNull("device"),
   ]);
-  return {
-    emailFailures: byEmail.map((r) => r.created_at as string),
-    clientFailures: byClient.map((r) => r.created_at as string),
-  };
+  return { account: times(account), client: times(client), device: [] };
 }
 
 /**
@@ -22,25 +48,45 @@ export async function recentFailures(args: { email: string; client: string; sinc
  * Returns the failures seen (for the caller's wait) and, when allowed, the new attempt's id.
  */
 export async function reserveLoginAttempt(
-  args: { email: string; client: string; sinceIso: string },
-  mayProceed: (failures: { emailFailures: string[]; clientFailures: string[] }) => boolean,
-): Promise<{ failures: { emailFailures: string[]; clientFailures: string[] }; attemptId: number | null }> {
+  subject: AttemptSubject,
+  sinceIso: string,
+  mayProceed: (failures: RecentFailures) => boolean,
+): Promise<{ failures: RecentFailures; attemptId: number | null }> {
   return getDb().transaction(async (trx) => {
-    const failures = await recentFailures(args, trx);
+    const failures = await recentFailures(subject, sinceIso, trx);
     if (!mayProceed(failures)) return { failures, attemptId: null };
     const [inserted] = await trx("login_attempts")
-      .insert({ email: args.email, client: args.client.slice(0, 100), succeeded: false, created_at: nowIso() })
+      .insert({ email: subject.email, client: subject.client.slice(0, 100), device: subject.device, purpose: subject.purpose, succeeded: false, created_at: nowIso() })
       .returning("id");
     const attemptId = typeof inserted === "object" && inserted !== null ? (inserted as { id: number }).id : (inserted as number);
     return { failures, attemptId };
   });
 }
 
-/** Marks a reserved attempt as the successful sign-in it turned out to be. */
-export async function markLoginAttemptSucceeded(attemptId: number): Promise<void> {
-  await getDb()("login_attempts").where({ id: attemptId }).update({ succeeded: true });
+/**
+ * Marks a reserved attempt as the success it turned out to be and forgets the failures of the
+ * counter that judged it: the device's own, or (without a device) the account's. A success on a
+ * known device leaves the account's count for unknown clients alone, so it never lifts a lock a
+ * stranger earned.
+ */
+export async function markLoginAttemptSucceeded(attemptId: number, subject: AttemptSubject): Promise<void> {
+  await getDb().transaction(async (trx) => {
+    await trx("login_attempts").where({ id: attemptId }).update({ succeeded: true });
+    const failures = trx("login_attempts").where({ purpose: subject.purpose, succeeded: false });
+    if (subject.device !== null) await failures.andWhere({ device: subject.device }).delete();
+    else await failures.andWhere({ email: subject.email }).whereNull("device").delete();
+  });
 }
 
-export async function clearFailuresForEmail(email: string): Promise<void> {
-  await getDb()("login_attempts").where({ email, succeeded: false }).delete();
+/** A wrong password typed again while signed in, kept in the company's audit trail. */
+export async function auditFailedPasswordReentry(args: { companyId: number; userId: number; name: string; summary: string; client: string }): Promise<void> {
+  await recordAudit(getDb(), {
+    companyId: args.companyId,
+    actor: { userId: args.userId, name: args.name },
+    action: "session.password_reentry_failed",
+    entityType: "user",
+    entityId: args.userId,
+    summary: args.summary,
+    after: { client: args.client },
+  });
 }

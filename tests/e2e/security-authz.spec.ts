@@ -331,6 +331,49 @@ test.describe("sign-in", () => {
     expect(error.message).toMatch(/too many failed sign-ins.*wait \d+ (seconds|minutes)/i);
   });
 
+  test("a stranger's wrong passwords lock the account for unknown clients, not the member's own device", async ({ baseURL }) => {
+    test.setTimeout(60_000);
+    const admin = await apiAs(baseURL!, "admin");
+    const member = await createMember(admin, "installer", "lockout");
+    // Distant clients of their own (the e2e server trusts one proxy), so the loopback's count is untouched.
+    const octet = () => 1 + Math.floor(Math.random() * 250);
+    const from = async (address: string) => playwrightRequest.newContext({ baseURL, extraHTTPHeaders: { "X-Forwarded-For": address } });
+    const device = await from(`203.0.113.${octet()}`);
+    const first = await device.post("/api/auth/sign-in", { data: { email: member.email, password: member.password } });
+    expect(first.status()).toBe(200);
+    const deviceCookie = first.headersArray().find((h) => h.name.toLowerCase() === "set-cookie" && /flueward-device=/.test(h.value))?.value ?? "";
+    expect(deviceCookie).toMatch(/HttpOnly/i);
+    expect(deviceCookie).toMatch(/SameSite=Lax/i);
+    expect(Number(/Max-Age=(\d+)/i.exec(deviceCookie)?.[1])).toBeGreaterThanOrEqual(180 * 24 * 3600);
+
+    const attacker = await from(`198.51.100.${octet()}`);
+    for (let i = 0; i < 5; i++) expect((await attacker.post("/api/auth/sign-in", { data: { email: member.email, password: `guess-${i}-wrong` } })).status()).toBe(401);
+    const refused = await attacker.post("/api/auth/sign-in", { data: { email: member.email, password: member.password } });
+    expect(refused.status()).toBe(429);
+    expect(Number(refused.headers()["retry-after"])).toBeGreaterThan(0);
+    const elsewhere = await from(`192.0.2.${octet()}`);
+    expect((await elsewhere.post("/api/auth/sign-in", { data: { email: member.email, password: member.password } })).status()).toBe(429);
+    // The device that signed in before still gets in.
+    expect((await device.post("/api/auth/sign-in", { data: { email: member.email, password: member.password } })).status()).toBe(200);
+  });
+
+  test("a member on a temporary password can only change it: other APIs answer 403 password_change_required", async ({ baseURL }) => {
+    const admin = await apiAs(baseURL!, "admin");
+    const member = await createMember(admin, "admin", "temporary");
+    const api = await signedIn(baseURL!, member.email, member.password);
+    for (const [method, url] of [["get", "/api/jobs"], ["get", "/api/members"], ["post", "/api/jobs"], ["get", "/api/rulebooks"]] as const) {
+      const response = method === "get" ? await api.get(url) : await api.post(url, { data: {} });
+      expect(response.status(), url).toBe(403);
+      expect((await response.json()).error.code, url).toBe("password_change_required");
+    }
+    const me = await api.get("/api/me");
+    expect(me.status()).toBe(200);
+    expect((await me.json()).member.mustChangePassword).toBe(true);
+    const own = `${unique("own")} lantern meadow`;
+    expect((await api.post("/api/auth/password", { data: { currentPassword: member.password, newPassword: own, confirmPassword: own } })).status()).toBe(200);
+    expect((await api.get("/api/jobs")).status()).toBe(200);
+  });
+
   test("the session id changes at every sign-in; the old cookie is refused, and after sign-out the last one too", async ({ baseURL }) => {
     const admin = await apiAs(baseURL!, "admin");
     const member = await createMember(admin, "installer", "session");

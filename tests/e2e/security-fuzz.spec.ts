@@ -7,7 +7,7 @@ import { z } from "zod";
 import { expect, request as playwrightRequest, test, type APIRequestContext } from "@playwright/test";
 import { apiAs } from "./support/api";
 import { discoverRouteHandlers, fillPattern } from "./support/routes";
-import { buildCompanyWorld, fetchWithRetry, createMember, signedIn, templateInspectionData, type CompanyWorld } from "./support/world";
+import { buildCompanyWorld, fetchWithRetry, createMember, signedInWithOwnPassword, templateInspectionData, type CompanyWorld } from "./support/world";
 import { signaturePng } from "./support/signature";
 import { changePasswordSchema, signInSchema } from "../../lib/schemas/auth";
 import { approveSchema, commentSchema, draftSaveSchema, inspectionCreateSchema, repinSchema, returnSchema, submitSchema } from "../../lib/schemas/inspection";
@@ -343,8 +343,8 @@ test("fuzz: every JSON endpoint refuses bad bodies with a 4xx in the common shap
   // A dedicated admin of company A: its audit trail shows whether a refused request wrote anything.
   const adminA = await apiAs(baseURL!, "admin");
   const fuzzer = await createMember(adminA, "admin", "fuzzer");
-  const api = await signedIn(baseURL!, fuzzer.email, fuzzer.password);
-  const world = await buildCompanyWorld({ admin: api, approver: api, approverName: "Security fuzzer", approverPassword: fuzzer.password, templateData: await templateInspectionData(api) });
+  const { api, password: fuzzerPassword } = await signedInWithOwnPassword(baseURL!, fuzzer);
+  const world = await buildCompanyWorld({ admin: api, approver: api, approverName: "Security fuzzer", approverPassword: fuzzerPassword, templateData: await templateInspectionData(api) });
   const anonymous = await playwrightRequest.newContext({ baseURL });
 
   let sent = 0;

@@ -85,6 +85,17 @@ export async function createMember(admin: APIRequestContext, role: "installer" |
   return { id: body.member.id, email, password: body.temporaryPassword };
 }
 
+/**
+ * Signs a new member in and replaces the temporary password with one of their own, as the first
+ * sign-in requires before any other API call; returns the client and the new password.
+ */
+export async function signedInWithOwnPassword(baseURL: string, member: { email: string; password: string }): Promise<{ api: APIRequestContext; password: string }> {
+  const api = await signedIn(baseURL, member.email, member.password);
+  const password = `${unique("own")} lantern meadow`;
+  await ok(await api.post("/api/auth/password", { data: { currentPassword: member.password, newPassword: password, confirmPassword: password } }), `own password for ${member.email}`);
+  return { api, password };
+}
+
 export async function signedIn(baseURL: string, email: string, password: string): Promise<APIRequestContext> {
   const context = await playwrightRequest.newContext({ baseURL });
   await ok(await context.post("/api/auth/sign-in", { data: { email, password } }), `sign in ${email}`);
