@@ -469,14 +469,12 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
     const minStub = m.hw + 8;
     const gap = m.compact ? 12 : 18;
     const dist = new Map<ChainPlace, number>();
-    const stub = new Map<ChainPlace, number>();
     for (const side of [-1, 1]) {
       let prev: number | null = null;
       for (const c of places.filter((q) => q.side === side)) {
         const dx = sm * pts[places.indexOf(c)]!.at(-1)!.x;
         let st = c.segIdx.length > 0 ? minStub : Math.max(minStub, m.appW / 2 + gap);
         if (prev !== null) st = Math.max(st, prev + m.appW + gap - dx);
-        stub.set(c, st);
         dist.set(c, dx + st);
         prev = dx + st;
       }
@@ -488,7 +486,6 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
       const short = m.appW + gap - (dist.get(inL)! + dist.get(inR)!);
       if (short > 0)
         for (const c of places) {
-          stub.set(c, stub.get(c)! + short / 2);
           dist.set(c, dist.get(c)! + short / 2);
         }
     }
@@ -1082,7 +1079,12 @@ export function buildVentRunScene(input: BuildVentRunSceneInput): VentRunScene {
   const failingParts: FailingPart[] = [];
   if (!multi && appFail) failingParts.push({ partId: "appliance", kind: "appliance", label: (app?.label as string) || kindWord, findingCodes: appFail.codes, titles: appFail.titles });
   if (multi) for (const d of drawn) if (d.appFail) failingParts.push({ partId: d.ch.partId, kind: "appliance", label: d.label, findingCodes: d.appFail.codes, titles: d.appFail.titles });
-  for (const sg of segs) if (sg.fail) failingParts.push({ partId: sg.id, kind: "segment", label: `Segment ${sg.index + 1}`, findingCodes: sg.fail.codes, titles: sg.fail.titles });
+  const connectorOf = (i: number): string => {
+    const d = multi ? drawn.find((q) => q.ch.segIdx.includes(i)) : undefined;
+    return d ? `, ${d.label} connector` : "";
+  };
+  for (const sg of segs)
+    if (sg.fail) failingParts.push({ partId: sg.id, kind: "segment", label: `Segment ${sg.index + 1}${connectorOf(sg.index)}`, findingCodes: sg.fail.codes, titles: sg.fail.titles });
   if (ventFail) failingParts.push({ partId: "vent", kind: "vent", label: "Vent", findingCodes: fails.vent.codes, titles: fails.vent.titles });
   if (termFail) failingParts.push({ partId: "termination", kind: "termination", label: "Termination", findingCodes: fails.termination.codes, titles: fails.termination.titles });
   if (fails.run.codes.length) failingParts.push({ partId: "run", kind: "run", label: "Vent run", findingCodes: fails.run.codes, titles: fails.run.titles });

@@ -161,7 +161,7 @@ describe("failing parts on a common vent", () => {
     // The water heater's connector line says it has a failing part; the furnace's does not.
     expect(texts(scene).find((p) => p.text === "connector: segments 3–4")?.role).toBe("label-fail");
     expect(texts(scene).find((p) => p.text === "connector: segments 1–2")?.role).toBe("label-muted");
-    expect(scene.failingParts.map((p) => p.partId)).toEqual(["h-2"]);
+    expect(scene.failingParts.map((p) => [p.partId, p.label])).toEqual([["h-2", "Segment 4, Water heater connector"]]);
   });
 
   test("an appliance finding highlights that appliance only", () => {

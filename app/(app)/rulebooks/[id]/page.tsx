@@ -5,6 +5,7 @@ import { can } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { getRulebook, getRulebookVersion, type RulebookDetail, type RulebookVersion } from "@/lib/data/rulebooks";
 import { idSchema } from "@/lib/schemas/common";
+import { rulebookGridLayouts } from "@/lib/rulebooks/grid-layout";
 import { rulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { RulebookStatusActions } from "../rulebook-status-actions";
 import { RulebookEditor } from "./rulebook-editor";
@@ -75,7 +76,15 @@ export default async function RulebookPage({ params, searchParams }: { params: P
 
       {/* The grid takes the full width so its citations stay readable on a 1280 px screen; the versions follow it. */}
       <div className="space-y-6">
-        <RulebookEditor key={version.id} rulebookId={rulebook.id} versionNumber={version.versionNumber} content={version.content} canEdit={canEdit} labels={rulebookChoiceLabels()} />
+        <RulebookEditor
+          key={version.id}
+          rulebookId={rulebook.id}
+          versionNumber={version.versionNumber}
+          content={version.content}
+          canEdit={canEdit}
+          labels={rulebookChoiceLabels()}
+          layouts={rulebookGridLayouts(canEdit)}
+        />
         <aside aria-labelledby="versions-title" className="space-y-2">
           <h2 id="versions-title" className="text-sm font-bold uppercase tracking-wide text-ink-500">
             Versions

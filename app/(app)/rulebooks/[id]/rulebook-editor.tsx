@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { Fragment, Suspense, lazy, useMemo, useRef, useState } from "react";
 import { apiFetch, ApiError } from "@/lib/client/api";
 // Straight from the zod-free modules of the engine, so the editor's bundle carries no zod.
+import type { GridLayout } from "@/lib/rulebooks/grid-layout";
 import type { RulebookChoiceLabels } from "@/lib/venting/rulebook/labels";
 import { PARAMETER_DEFINITIONS } from "@/lib/venting/rulebook/parameters";
 import { RULEBOOK_TABLES, RULEBOOK_TABLE_KEYS, type ColumnDefinition, type RulebookTableKey } from "@/lib/venting/rulebook/table-definitions";
@@ -31,48 +32,6 @@ function emptyRow(table: RulebookTableKey): Row {
   return row;
 }
 
-/** Text columns that hold sentences: they get the room that is left, or a line of their own. */
-const WIDE_TEXT_COLUMNS = new Set(["citation", "note"]);
-const INDEX_COLUMN_REM = 2.5;
-const ACTIONS_COLUMN_REM = 7.5;
-const WIDE_TEXT_MIN_REM = 15;
-/**
- * Room for the grid on a 1280 px screen beside the navigation (62 rem less the card's border):
- * a table wider than this puts its sentences on a line of their own under each row, so that
- * citations stay readable without scrolling sideways.
- */
-const GRID_ROOM_REM = 60;
-
-function isWideText(column: ColumnDefinition): boolean {
-  return column.kind === "text" && WIDE_TEXT_COLUMNS.has(column.key);
-}
-
-function columnWidthRem(table: RulebookTableKey, column: ColumnDefinition): number {
-  if (table === "parameters" && column.key === "key") return 20;
-  switch (column.kind) {
-    case "enum":
-      return 8.5;
-    case "number":
-      return 5.5;
-    case "boolean":
-      return 5.5;
-    case "text":
-      return 8.5;
-    default:
-      column.kind satisfies never;
-      return 8;
-  }
-}
-
-/** Column widths of a table's grid, and whether its sentences go under each row. */
-function gridLayout(table: RulebookTableKey, columns: readonly ColumnDefinition[], withActions: boolean) {
-  const short = columns.filter((c) => !isWideText(c));
-  const wide = columns.filter(isWideText);
-  const fixedRem = INDEX_COLUMN_REM + short.reduce((sum, c) => sum + columnWidthRem(table, c), 0) + (withActions ? ACTIONS_COLUMN_REM : 0);
-  const stacked = wide.length > 0 && fixedRem + wide.length * WIDE_TEXT_MIN_REM > GRID_ROOM_REM;
-  return { short, wide, stacked, minWidthRem: stacked ? fixedRem : fixedRem + wide.length * WIDE_TEXT_MIN_REM };
-}
-
 /** An option as a person reads it; the parameters table's keys by their parameter name. */
 function choiceLabel(labels: RulebookChoiceLabels, table: RulebookTableKey, column: ColumnDefinition, value: string): string {
   return (table === "parameters" && column.key === "key" ? labels.parameters[value] : labels.options[value]) ?? value;
@@ -93,6 +52,7 @@ export function RulebookEditor({
   content,
   canEdit,
   labels,
+  layouts,
 }: {
   rulebookId: number;
   versionNumber: number;
@@ -100,6 +60,8 @@ export function RulebookEditor({
   canEdit: boolean;
   /** Human names of parameter keys and options (lib/venting/rulebook/labels.ts), from the server. */
   labels: RulebookChoiceLabels;
+  /** Column widths of every table (lib/rulebooks/grid-layout.ts), from the server. */
+  layouts: Record<RulebookTableKey, GridLayout>;
 }) {
   const router = useRouter();
   const [tables, setTables] = useState<Tables>(() => {
@@ -128,7 +90,10 @@ export function RulebookEditor({
     return counts;
   }, [tables]);
   const totalErrors = Object.values(errorCounts).reduce((a, b) => a + b, 0);
-  const layout = useMemo(() => gridLayout(active, definition.columns, canEdit), [active, definition.columns, canEdit]);
+  const layout = layouts[active];
+  const isWideText = (column: ColumnDefinition) => layout.wide.includes(column.key);
+  const wideColumns = definition.columns.filter(isWideText);
+  const shortCount = definition.columns.length - wideColumns.length;
 
   const update = (next: Row[]) => {
     setTables((t) => ({ ...t, [active]: next }));
@@ -235,11 +200,11 @@ export function RulebookEditor({
       <div className="card relative overflow-x-auto" role="region" aria-label={`${definition.title} table`} tabIndex={0}>
         <table className="w-full table-fixed text-left text-sm" style={{ minWidth: `${layout.minWidthRem}rem` }}>
           <colgroup>
-            <col style={{ width: `${INDEX_COLUMN_REM}rem` }} />
+            <col style={{ width: `${layout.indexRem}rem` }} />
             {definition.columns.map((c) =>
-              layout.stacked && isWideText(c) ? null : <col key={c.key} style={isWideText(c) ? undefined : { width: `${columnWidthRem(active, c)}rem` }} />,
+              layout.stacked && isWideText(c) ? null : <col key={c.key} style={isWideText(c) ? undefined : { width: `${layout.widthsRem[c.key]}rem` }} />,
             )}
-            {canEdit ? <col style={{ width: `${ACTIONS_COLUMN_REM}rem` }} /> : null}
+            {canEdit ? <col style={{ width: `${layout.actionsRem}rem` }} /> : null}
           </colgroup>
           <thead className="border-b border-ink-200 bg-ink-50 text-xs uppercase tracking-wide text-ink-500">
             <tr>
@@ -355,9 +320,9 @@ export function RulebookEditor({
                   {layout.stacked ? (
                     <tr className={`border-b border-ink-100 ${rowTone}`}>
                       <td />
-                      <td colSpan={layout.short.length + (canEdit ? 1 : 0)} className="px-1.5 pb-2">
-                        <div className={`grid gap-2 ${layout.wide.length > 1 ? "sm:grid-cols-2" : ""}`}>
-                          {layout.wide.map((column) => (
+                      <td colSpan={shortCount + (canEdit ? 1 : 0)} className="px-1.5 pb-2">
+                        <div className={`grid gap-2 ${wideColumns.length > 1 ? "sm:grid-cols-2" : ""}`}>
+                          {wideColumns.map((column) => (
                             <div key={column.key} className="min-w-0">
                               <span className="mb-0.5 block text-[11px] font-semibold uppercase tracking-wide text-ink-500" aria-hidden="true">
                                 {column.label}
