@@ -4,7 +4,7 @@ import { compiledRead } from "@/db/compiled-read";
 import { getDb, isSqlite } from "@/db/knex";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/auth/roles";
-import { inspectionDataSchema, emptyInspectionData, type InspectionData } from "@/lib/inspections/data";
+import { emptyInspectionData, parseStoredInspectionData, type InspectionData } from "@/lib/inspections/data";
 import { evaluateInspectionData, submissionBlockers, type InspectionFinding } from "@/lib/inspections/evaluate";
 import { preparedFor, preparedForRef } from "@/lib/checks/run-check";
 import { readFindingSummary, type FindingSummary } from "@/lib/venting";
@@ -239,13 +239,13 @@ async function readInspection(args: { companyId: number; id: number }): Promise<
     inspectionCommentRows(db, { companyId: args.companyId, inspectionId: args.id }),
     revisionRows(db, { companyId: args.companyId, rootId }),
   ]);
-  const parsedData = inspectionDataSchema.safeParse(parseJson(row.data_json as string | null, {}));
+  const storedData = parseStoredInspectionData(parseJson(row.data_json as string | null, {}));
   const findingsJson = (row.findings_json as string | Uint8Array | null) ?? null;
   return {
     detail: {
       ...toSummary(row),
       version: row.version as number,
-      data: parsedData.success ? parsedData.data : emptyInspectionData(),
+      data: storedData ?? emptyInspectionData(),
       rulebookVersion: { id: row.rv_id as number, rulebookId: row.rb_id as number, name: row.rb_name as string, versionNumber: row.rv_number as number },
       latestRulebookVersionId: (row.latest_rv_id as number | null) ?? null,
       installerId: (row.installer_id as number | null) ?? null,
@@ -319,8 +319,8 @@ export async function createInspection(args: { member: Member; jobId: number; co
     : await db("inspections").where({ company_id: member.companyId, job_id: args.jobId }).orderBy("id", "desc").first("data_json");
   if (args.copyAppliancesFrom && !source) throw new AppError("not_found", "No such inspection on this job to copy appliances from.");
   if (source) {
-    const parsed = inspectionDataSchema.safeParse(parseJson(source.data_json, {}));
-    if (parsed.success) appliances = parsed.data.appliances;
+    const parsed = parseStoredInspectionData(parseJson(source.data_json, {}));
+    if (parsed) appliances = parsed.appliances;
   }
   const data = emptyInspectionData(appliances);
   const evaluation = await evaluateStored(member.companyId, version.id, data);

@@ -34,6 +34,38 @@ export const inspectionDataSchema = z.object({
 });
 
 export type InspectionData = z.output<typeof inspectionDataSchema>;
+
+/**
+ * Reads an inspection stored by an earlier version, whose schema may have been looser (numbers
+ * outside today's ranges): a value the schema refuses is cleared, so the check asks for it again
+ * (needs-info), instead of the whole draft being lost. Null when it still cannot be read.
+ */
+export function parseStoredInspectionData(raw: unknown): InspectionData | null {
+  let value: unknown = raw;
+  for (let attempt = 0; attempt < 5; attempt++) {
+    const parsed = inspectionDataSchema.safeParse(value);
+    if (parsed.success) return parsed.data;
+    if (attempt === 0) value = structuredClone(raw);
+    let cleared = false;
+    for (const issue of parsed.error.issues) cleared = clearNumberAt(value, issue.path) || cleared;
+    if (!cleared) return null;
+  }
+  return null;
+}
+
+/** Sets the number at a path to null; false when there is no number there. */
+function clearNumberAt(root: unknown, path: readonly PropertyKey[]): boolean {
+  if (path.length === 0) return false;
+  let node: unknown = root;
+  for (const key of path.slice(0, -1)) {
+    if (!node || typeof node !== "object") return false;
+    node = (node as Record<PropertyKey, unknown>)[key];
+  }
+  const last = path[path.length - 1]!;
+  if (!node || typeof node !== "object" || typeof (node as Record<PropertyKey, unknown>)[last] !== "number") return false;
+  (node as Record<PropertyKey, unknown>)[last] = null;
+  return true;
+}
 export type InspectionDataInput = z.input<typeof inspectionDataSchema>;
 
 /** Limits that keep a draft bounded (a phone can still hold a very large job). */

@@ -1,5 +1,6 @@
 import { atLeast } from "../compare";
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
+import { fmt } from "../format";
 import type { IndexedRow, PreparedRulebook } from "../rulebook/prepare";
 import { finding, known, missingRuleFinding, param, target, type VentRunContext } from "./shared";
 
@@ -66,7 +67,7 @@ export function checkTerminationHeight(ctx: VentRunContext, out: Finding[]): voi
     );
     return;
   }
-  const reason = !term.listedCap ? "without a listed cap" : term.capSizeIn! > capMax.value ? `with a cap over ${capMax.value} in` : `closer than ${wallMin.value} ft to a wall`;
+  const reason = !term.listedCap ? "without a listed cap" : term.capSizeIn! > capMax.value ? `with a cap over ${fmt(capMax.value)} in` : `closer than ${fmt(wallMin.value)} ft to a wall`;
   const ok = atLeast(h, fixed.value);
   out.push(
     finding(CODE, ok ? "pass" : "fail", (ok ? m.pass : m.fail)(h, fixed.value, m.fixed(reason)), t, fixed, {

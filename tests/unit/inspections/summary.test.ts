@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { emptyInspectionData } from "@/lib/inspections/data";
+import { emptyInspectionData, parseStoredInspectionData } from "@/lib/inspections/data";
 import { evaluateInspectionData, submissionBlockers, type InspectionFinding } from "@/lib/inspections/evaluate";
 import { DEFAULT_SITE_CHECK_ITEMS } from "@/lib/site-checks";
 import { prepareRulebook, readFindingSummary, summarizeFindings, type Finding, type FindingStatus } from "@/lib/venting";
@@ -57,5 +57,20 @@ describe("the inspection's findings: site checks answered not applicable", () =>
     const blockers = submissionBlockers(e.findings, {});
     expect(blockers.some((x) => x.status === "not-applicable")).toBe(false);
     expect(blockers.some((x) => x.status === "needs-info")).toBe(true);
+  });
+});
+
+describe("inspections stored before the input ranges", () => {
+  test("a value now out of range is cleared (asked for again), the rest of the draft is kept", () => {
+    const stored = { appliances: [{ id: "a", label: "Furnace", inputBtuh: 80_000 }], readings: [{ applianceId: "a", flueO2Pct: 25, flueCoPpm: 40 }], notes: "kept" };
+    const data = parseStoredInspectionData(stored);
+    expect(data?.readings[0]).toMatchObject({ applianceId: "a", flueO2Pct: null, flueCoPpm: 40 });
+    expect(data?.appliances[0]?.inputBtuh).toBe(80_000);
+    expect(data?.notes).toBe("kept");
+    expect(stored.readings[0]!.flueO2Pct).toBe(25); // the stored object itself is not changed
+  });
+
+  test("something that is not an inspection at all still reads as nothing", () => {
+    expect(parseStoredInspectionData({ appliances: "x" })).toBeNull();
   });
 });
