@@ -312,7 +312,6 @@ export const MESSAGES = {
       `Vent ${inch(ventIn)} is one size smaller than the ${inch(outletIn)} outlet on a ${ft(heightFt)} vent. This is only acceptable within the reduction rules of your code (never a 3 in vent on a 4 in draft hood; fan-assisted maximum reduced); confirm the capacity with the table.`,
     ventFail: (ventIn: number, outletIn: number, reason: string) =>
       `Vent ${inch(ventIn)} is smaller than the ${inch(outletIn)} appliance outlet and may not be: ${reason} Use a vent of at least ${inch(outletIn)}.`,
-    reasonNoRule: () => "the rulebook sets no height at which a smaller vent may be considered.",
     reasonTooShort: (heightFt: number, minHeightFt: number) =>
       `a vent smaller than the outlet is considered only when it is at least ${ft(minHeightFt)} high, and this one is ${ft(heightFt)}.`,
     reasonMoreThanOneSize: (ventIn: number, outletIn: number, oneSizeIn: number) =>

@@ -1,5 +1,5 @@
 import { FINDING_CODES, MESSAGES, type Finding } from "../findings";
-import { finding, known, param, segmentTarget, target, type VentRunContext } from "./shared";
+import { finding, known, missingRuleFinding, param, segmentTarget, target, type VentRunContext } from "./shared";
 
 const CODE = FINDING_CODES.connectorDiameter;
 /** The requirement here is the appliance's own outlet, not a rulebook number. */
@@ -126,10 +126,14 @@ export function checkConnectorDiameter(ctx: VentRunContext, out: Finding[]): voi
       reason = m.reasonTooShort(heightFt ?? 0, minH ? minH.value : 0);
       break;
     case null:
-      if (!minH) reason = m.reasonNoRule();
       break;
     default:
       refusal satisfies never;
+  }
+  if (reason === null && !minH) {
+    // Every other condition holds; only the rulebook's height is missing: not checked, never a verdict.
+    out.push(missingRuleFinding(CODE, "the vent height at which a smaller vent may be considered", "parameters", vt));
+    return;
   }
   if (reason !== null) {
     out.push(finding(CODE, "fail", m.ventFail(vent.diameterIn, a.outletDiameterIn, reason), vt, minH ?? OUTLET_RULE, { measured, required }));

@@ -54,6 +54,10 @@ export function checkConnectorLengthPerDiameter(ctx: VentRunContext, out: Findin
     }
     const maxFt = perIn.value * diameterIn;
     const ok = atMost(lengthFt, maxFt);
+    if (!ok && !loss) {
+      out.push(missingRuleFinding(CODE, "the capacity loss per extra multiple of connector length", "parameters", segmentTarget(first, segs[first]!, "lengthFt")));
+      continue;
+    }
     const lossPct = ok || !loss ? 0 : connectorLengthLossPct(lengthFt, maxFt, loss.value);
     const m = MESSAGES.connectorLengthPerDiameter;
     out.push(

@@ -27,7 +27,9 @@ export function temperatureRiseF(supplyTempF: number, returnTempF: number): numb
   return supplyTempF - returnTempF;
 }
 
-/** Airflow from output and temperature rise, cfm = output ÷ (1.08 × ΔT). */
-export function airflowCfm(outputBtuh: number, riseF: number): number {
+/** Airflow from output and temperature rise, cfm = output ÷ (1.08 × ΔT); null for a rise of zero or less. */
+export function airflowCfm(outputBtuh: number, riseF: number): number | null {
+  // No rise means no measurable airflow from this relation, not an infinite one.
+  if (!(riseF > 0) || !Number.isFinite(outputBtuh)) return null;
   return outputBtuh / (SENSIBLE_HEAT_FACTOR * riseF);
 }

@@ -358,3 +358,28 @@ describe("properties of the multiple-appliance sizing (starter demo tables)", ()
     );
   });
 });
+
+describe("rules a rulebook lacks are not checked, never a verdict", () => {
+  const without = (key: string) => prepareRulebook({ ...structuredClone(STARTER_RULEBOOK), parameters: STARTER_RULEBOOK.parameters.filter((p) => p.key !== key) });
+  const vertical = (ventIn: number) =>
+    ventRunSchema.parse({
+      segments: [{ id: "s", material: "type_b", diameterIn: ventIn, lengthFt: 2, orientation: "vertical" }],
+      vent: { material: "type_b", diameterIn: ventIn, heightFt: 20, lateralFt: 0, turns45: 0, turns90: 0 },
+    });
+
+  test("a vent one size smaller with no reduction height in the rulebook", () => {
+    const a = [applianceSchema.parse({ id: "a", label: "Furnace", kind: "furnace", category: "I", draft: "fan_assisted", inputBtuh: 60_000, outletDiameterIn: 5 })];
+    const f = evaluateVentRun(vertical(4), a, without("vent_reduction_min_height_ft")).findings.find((x) => x.code === "connector.diameter" && x.target.path === "ventRun.vent.diameterIn")!;
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toMatch(/^Not checked/);
+  });
+
+  test("an over-length connector with no loss per extra length in the rulebook", () => {
+    const run = commonRun({ diameterIn: 4, verticalFt: 1, horizontalFt: 9, riseIn: 12 }, { diameterIn: 5, verticalFt: 1, horizontalFt: 4, riseIn: 12 }, { diameterIn: 6, heightFt: 20 });
+    const fs = evaluateVentRun(run, appliances({ outletDiameterIn: 5 }, { outletDiameterIn: 4 }), without("connector_capacity_loss_per_extra_length_multiple_pct")).findings;
+    const f = fs.find((x) => x.code === "connector.length_per_diameter" && x.target.itemId?.startsWith("wh"))!;
+    expect(f.status).toBe("needs-info");
+    expect(f.message).toMatch(/^Not checked/);
+    expect(fs.find((x) => x.code === "connector.capacity" && x.target.itemId?.startsWith("wh"))?.status).toBe("needs-info");
+  });
+});
