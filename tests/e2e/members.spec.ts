@@ -1,6 +1,7 @@
 import { expect, test } from "@playwright/test";
 import { SignInPage } from "./pages/sign-in-page";
 import { apiAs, apiSignIn } from "./support/api";
+import { signedInWithOwnPassword, unique } from "./support/world";
 
 test.describe("members (admin)", () => {
   test("add a member with a temporary password; they must choose their own at first sign-in", async ({ page, browser, baseURL }) => {
@@ -86,8 +87,10 @@ test.describe("members (admin)", () => {
 
   test("a role change applies to the member's next request", async ({ baseURL }) => {
     const admin = await apiAs(baseURL!, "admin");
-    const { member, temporaryPassword } = await (await admin.post("/api/members", { data: { name: "Sabine Corrow", email: "sabine.corrow@flueward.test", role: "installer" } })).json();
-    const sabine = await apiSignIn(baseURL!, "sabine.corrow@flueward.test", temporaryPassword);
+    const email = `${unique("sabine")}@flueward.test`;
+    const { member, temporaryPassword } = await (await admin.post("/api/members", { data: { name: "Sabine Corrow", email, role: "installer" } })).json();
+    // A temporary password allows nothing but its change: choose one first, then the role decides.
+    const { api: sabine } = await signedInWithOwnPassword(baseURL!, { email, password: temporaryPassword });
     expect((await sabine.get("/api/members")).status()).toBe(403);
     await admin.patch(`/api/members/${member.id}`, { data: { role: "admin" } });
     expect((await sabine.get("/api/members")).status()).toBe(200);
